@@ -1,0 +1,59 @@
+"""The equation forms, their slopes and their inverse."""
+
+import math
+
+import numpy as np
+import pytest
+
+from service.physics import water
+from service.physics.correlations import ExtendedAntoine, Wagner
+
+# Antoine constants of water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C):
+# A = 8.07131, B = 1730.63, C = 233.426 (the classic handbook set, e.g. Lange's Handbook
+# of Chemistry; recalled from memory). Converted here to ln(p/Pa) and K.
+_MMHG = 133.322387415
+WATER_ANTOINE = ExtendedAntoine(
+    a=math.log(_MMHG) + math.log(10) * 8.07131, b=-math.log(10) * 1730.63, c=233.426 - 273.15
+)
+
+
+def test_antoine_water_boils_at_760_mmhg_at_100_degc() -> None:
+    assert WATER_ANTOINE.pressure(373.15) / _MMHG == pytest.approx(760.0, abs=0.5)
+
+
+def test_antoine_agrees_with_iapws_within_its_range() -> None:
+    t = np.linspace(275.0, 373.0, 50)
+    np.testing.assert_allclose(WATER_ANTOINE.pressure(t), water.saturation_pressure(t), rtol=0.01)
+
+
+def test_dippr101_water_from_perry() -> None:
+    # Perry's Chemical Engineers' Handbook, 8th ed., Table 2-8, water: A = 73.649,
+    # B = -7258.2, C = -7.3037, D = 4.1653e-6, E = 2 (recalled from memory), valid
+    # 273.16-647.1 K; it tracks IAPWS within about 0.3 %.
+    dippr = ExtendedAntoine(a=73.649, b=-7258.2, e=-7.3037, f=4.1653e-6, g=2.0)
+    t = np.linspace(280.0, 640.0, 50)
+    np.testing.assert_allclose(dippr.pressure(t), water.saturation_pressure(t), rtol=3e-3)
+
+
+def test_wagner_is_the_water_equation() -> None:
+    plain = Wagner(
+        water.CRITICAL_TEMPERATURE, water.CRITICAL_PRESSURE, water.SATURATION.coefficients, water.SATURATION.exponents
+    )
+    t = np.linspace(273.16, 647.096, 20)
+    np.testing.assert_array_equal(plain.pressure(t), water.saturation_pressure(t))
+
+
+@pytest.mark.parametrize("equation", [WATER_ANTOINE, water.SATURATION], ids=["antoine", "wagner"])
+def test_slope_and_inverse(equation) -> None:
+    t = np.linspace(280.0, 370.0, 91)
+    h = 1e-4
+    numeric = (equation.pressure(t + h) - equation.pressure(t - h)) / (2 * h)
+    np.testing.assert_allclose(equation.slope(t), numeric, rtol=1e-6)
+    back = equation.temperature(equation.pressure(t), 274.0, 646.0)
+    np.testing.assert_allclose(back, t, rtol=1e-12)
+
+
+def test_inverse_clamps_to_the_bracket() -> None:
+    # Pressures beyond the bracket come back as its nearer end: callers check the range first.
+    out = WATER_ANTOINE.temperature(np.array([1.0, 1e9]), 280.0, 370.0)
+    np.testing.assert_allclose(out, [280.0, 370.0])
