@@ -50,6 +50,7 @@ class VaporPressureEquation(ABC):
         x_lo = np.full(ln_p.shape, 1 / high)
         x_hi = np.full(ln_p.shape, 1 / low)
         x = np.clip(1 / self.initial_temperature(ln_p, low, high), x_lo, x_hi)
+        active = np.ones(ln_p.shape, dtype=bool)
         for _ in range(_MAX_ITERATIONS):
             t = 1 / x
             value, d_ln_p = self.ln_pressure_and_slope(t)
@@ -58,11 +59,12 @@ class VaporPressureEquation(ABC):
             x_lo = np.where(residual > 0, x, x_lo)
             x_hi = np.where(residual <= 0, x, x_hi)
             newton = x + residual / (d_ln_p * t * t)
-            inside = (newton > x_lo) & (newton < x_hi)
-            x_new = np.where(inside, newton, 0.5 * (x_lo + x_hi))
-            done = np.abs(x_new - x) <= _RELATIVE_TOLERANCE * x
-            x = x_new
-            if done.all():
+            step = np.where((newton > x_lo) & (newton < x_hi), newton, 0.5 * (x_lo + x_hi))
+            # Each point stops at its own convergence, so an array answer equals the single ones.
+            moved = np.abs(step - x) > _RELATIVE_TOLERANCE * x
+            x = np.where(active, step, x)
+            active &= moved
+            if not active.any():
                 break
         return 1 / x
 
