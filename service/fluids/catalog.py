@@ -1,0 +1,205 @@
+"""Load, validate and look up the fluid catalog.
+
+The built-in entries live in ``data/*.toml`` beside this module; every entry is checked
+by :class:`~service.fluids.schema.FluidEntrySchema` and turned into a :class:`Fluid`
+whose vapor-pressure equation comes from :mod:`service.physics.correlations`.
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+import tomllib
+from collections.abc import Iterable, Mapping
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+from marshmallow import ValidationError
+from numpy.typing import ArrayLike, NDArray
+
+from service.fluids.schema import FluidEntrySchema
+from service.physics import water
+from service.physics.correlations import ExtendedAntoine, VaporPressureEquation, Wagner
+from service.physics.units import resolve_unit
+
+DATA_DIR = Path(__file__).with_name("data")
+
+
+class CatalogError(ValueError):
+    """A catalog file that cannot be loaded; the message names file, entry and field."""
+
+
+@dataclass(frozen=True)
+class Fluid:
+    """A fluid with its fixed points [K, Pa] and its vapor-pressure equation."""
+
+    id: str
+    name: str
+    formula: str
+    cas: str
+    aliases: tuple[str, ...]
+    molar_mass: float
+    critical_temperature: float
+    critical_pressure: float
+    triple_temperature: float
+    triple_pressure: float
+    normal_boiling_point: float | None
+    constants_source: str
+    equation: VaporPressureEquation = field(repr=False)
+    t_min: float
+    t_max: float
+    method: str
+    source: str
+
+    @property
+    def p_min(self) -> float:
+        """Pressure at the lower end of the equation's stated range [Pa]."""
+        return float(self.equation.pressure(self.t_min))
+
+    @property
+    def p_max(self) -> float:
+        """Pressure at the upper end of the equation's stated range [Pa]."""
+        return float(self.equation.pressure(self.t_max))
+
+    def saturation_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """Vapor pressure [Pa] at ``temperature`` [K]."""
+        return self.equation.pressure(temperature)
+
+    def saturation_pressure_slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """dp/dT along saturation [Pa/K] at ``temperature`` [K]."""
+        return self.equation.slope(temperature)
+
+    def saturation_temperature(self, pressure: ArrayLike) -> NDArray[np.float64]:
+        """Boiling point [K] at absolute ``pressure`` [Pa], between triple and critical point."""
+        return self.equation.temperature(pressure, self.triple_temperature, self.critical_temperature)
+
+
+def equation_from_entry(
+    vp: Mapping[str, Any], critical_temperature: float, critical_pressure: float
+) -> VaporPressureEquation:
+    """Build the physics object for a validated ``vapor_pressure`` table (SI coefficients)."""
+    form = vp["form"]
+    if form == "iapws-1992":
+        return water.SATURATION
+    if form == "wagner":
+        return Wagner(
+            critical_temperature=vp.get("reducing_temperature", critical_temperature),
+            critical_pressure=vp.get("reducing_pressure", critical_pressure),
+            coefficients=tuple(vp["coefficients"]),
+            exponents=tuple(vp["exponents"]),
+        )
+    if form == "dippr101":
+        return ExtendedAntoine(a=vp["A"], b=vp["B"], e=vp["C"], f=vp["D"], g=vp["E"])
+    # antoine: log_b(p / P_unit) = A - B / (t + C), t = (T - offset) / scale
+    k = math.log(10.0) if vp["log_base"] == 10 else 1.0
+    p_unit = resolve_unit(vp["pressure_unit"], "pressure")
+    t_unit = resolve_unit(vp["temperature_unit"], "temperature")
+    return ExtendedAntoine(
+        a=math.log(p_unit.scale) + k * vp["A"],
+        b=-k * vp["B"] * t_unit.scale,
+        c=vp["C"] * t_unit.scale - t_unit.offset,
+    )
+
+
+def fluid_from_entry(entry: Mapping[str, Any]) -> Fluid:
+    """Turn one validated catalog entry into a :class:`Fluid`."""
+    vp = entry["vapor_pressure"]
+    return Fluid(
+        id=entry["id"],
+        name=entry["name"],
+        formula=entry["formula"],
+        cas=entry["cas"],
+        aliases=tuple(entry["aliases"]),
+        molar_mass=entry["molar_mass"],
+        critical_temperature=entry["critical_temperature"],
+        critical_pressure=entry["critical_pressure"],
+        triple_temperature=entry["triple_temperature"],
+        triple_pressure=entry["triple_pressure"],
+        normal_boiling_point=entry["normal_boiling_point"],
+        constants_source=entry["constants_source"],
+        equation=equation_from_entry(vp, entry["critical_temperature"], entry["critical_pressure"]),
+        t_min=vp["t_min"],
+        t_max=vp["t_max"],
+        method=vp["method"],
+        source=vp["source"],
+    )
+
+
+def _messages(errors: Mapping[str, Any], prefix: str = "") -> Iterable[str]:
+    for key, value in errors.items():
+        if isinstance(value, Mapping):
+            yield from _messages(value, f"{prefix}{key}.")
+        else:
+            yield f"{prefix}{key}: {'; '.join(map(str, value))}"
+
+
+def load_file(path: Path) -> list[Fluid]:
+    """Read and validate one catalog file; raise :class:`CatalogError` naming what is wrong."""
+    try:
+        document = tomllib.loads(path.read_text(encoding="utf-8"))
+    except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError) as exc:
+        raise CatalogError(f"{path}: cannot read catalog file: {exc}") from exc
+    entries = document.get("fluid")
+    if not isinstance(entries, list) or not entries:
+        raise CatalogError(f"{path}: no [[fluid]] entries")
+    fluids = []
+    for number, raw in enumerate(entries, start=1):
+        label = f"{path}: entry {number} ({raw.get('id', 'no id')!s})"
+        try:
+            fluids.append(fluid_from_entry(FluidEntrySchema().load(raw)))
+        except ValidationError as exc:
+            raise CatalogError(f"{label}: {' | '.join(_messages(exc.normalized_messages()))}") from exc
+    return fluids
+
+
+class Catalog:
+    """The fluids, found by id, CAS number, name or alias, case-insensitively."""
+
+    def __init__(self, fluids: Iterable[Fluid]) -> None:
+        self.fluids: dict[str, Fluid] = {}
+        self._keys: dict[str, str] = {}
+        for fluid in fluids:
+            if fluid.id in self.fluids:
+                raise CatalogError(f"fluid id {fluid.id!r} is defined twice")
+            self.fluids[fluid.id] = fluid
+            for key in (fluid.id, fluid.cas, fluid.name, *fluid.aliases):
+                owner = self._keys.setdefault(_fold(key), fluid.id)
+                if owner != fluid.id:
+                    raise CatalogError(f"{key!r} names both {owner!r} and {fluid.id!r}")
+
+    def get(self, name: str) -> Fluid | None:
+        """The fluid that ``name`` denotes, or None."""
+        fluid_id = self._keys.get(_fold(name))
+        return self.fluids[fluid_id] if fluid_id else None
+
+    def close_matches(self, name: str, count: int = 3) -> list[str]:
+        """Ids of up to ``count`` fluids whose names resemble ``name``, best first."""
+        ids: list[str] = []
+        for key in difflib.get_close_matches(_fold(name), self._keys, n=4 * count, cutoff=0.5):
+            if self._keys[key] not in ids:
+                ids.append(self._keys[key])
+        return ids[:count]
+
+    def search(self, query: str) -> list[Fluid]:
+        """Fluids whose id, CAS number, formula, name or an alias contains ``query``."""
+        q = _fold(query)
+        return [
+            f for f in self.fluids.values() if any(q in _fold(k) for k in (f.id, f.cas, f.formula, f.name, *f.aliases))
+        ]
+
+
+def _fold(text: str) -> str:
+    return " ".join(text.casefold().split())
+
+
+def builtin_files() -> list[Path]:
+    """The built-in catalog files, in name order."""
+    return sorted(DATA_DIR.glob("*.toml"))
+
+
+def load_catalog(files: Iterable[Path] | None = None, extra_files: Iterable[Path] = ()) -> Catalog:
+    """The catalog from ``files`` (default: the built-in ones) plus operator files, validated alike."""
+    paths = [*(builtin_files() if files is None else files), *extra_files]
+    return Catalog(fluid for path in paths for fluid in load_file(Path(path)))
