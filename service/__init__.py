@@ -1,0 +1,24 @@
+"""A stateless HTTP service for boiling points, vapor pressures and the standard atmosphere."""
+
+from __future__ import annotations
+
+from collections.abc import Mapping
+from typing import Any
+
+from flask import Flask
+
+from service.api import register_api
+from service.api.jsonio import OrjsonProvider
+from service.config import settings
+from service.fluids.catalog import load_catalog
+
+
+def create_app(config: Mapping[str, Any] | None = None) -> Flask:
+    """Build the application: settings, the fluid catalog, the API and its OpenAPI document."""
+    app = Flask(__name__)
+    app.config.from_mapping(settings())
+    app.config.from_mapping(config or {})
+    app.json = OrjsonProvider(app)
+    app.extensions["catalog"] = load_catalog(app.config.get("CATALOG_FILES"))
+    register_api(app)
+    return app

@@ -1,0 +1,84 @@
+"""The fluid catalog: list, search and details."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from flask import Blueprint, Response, current_app
+from marshmallow import Schema, fields
+
+from service.api.operations import query_args
+from service.api.quantities import UnitField, quantity
+from service.api.rules import catalog, resolve_fluid
+from service.fluids.catalog import Fluid
+from service.physics.units import DEFAULT_UNITS, Unit, resolve_unit
+
+blueprint = Blueprint("fluids", __name__)
+
+
+class FluidQuery(Schema):
+    pressure_unit = UnitField("pressure", metadata={"description": "Unit of the pressures in the answer."})
+    temperature_unit = UnitField("temperature", metadata={"description": "Unit of the temperatures in the answer."})
+
+
+class FluidSearchQuery(FluidQuery):
+    q = fields.String(
+        metadata={"description": "Part of an id, name, alias, formula or CAS number.", "example": "alcohol"}
+    )
+
+
+def _units(loaded: dict[str, Any]) -> tuple[Unit, Unit]:
+    return (
+        loaded.get("pressure_unit") or resolve_unit(DEFAULT_UNITS["pressure"], "pressure"),
+        loaded.get("temperature_unit") or resolve_unit(DEFAULT_UNITS["temperature"], "temperature"),
+    )
+
+
+def summary(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
+    nbp = fluid.normal_boiling_point
+    return {
+        "id": fluid.id,
+        "name": fluid.name,
+        "formula": fluid.formula,
+        "cas": fluid.cas,
+        "aliases": list(fluid.aliases),
+        "normal_boiling_point": None if nbp is None else quantity(nbp, t_unit),
+        "range": {
+            "temperature_min": quantity(fluid.t_min, t_unit),
+            "temperature_max": quantity(fluid.t_max, t_unit),
+            "pressure_min": quantity(fluid.p_min, p_unit),
+            "pressure_max": quantity(fluid.p_max, p_unit),
+        },
+    }
+
+
+def detail(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
+    return {
+        **summary(fluid, p_unit, t_unit),
+        "molar_mass": fluid.molar_mass,
+        "critical_point": {
+            "temperature": quantity(fluid.critical_temperature, t_unit),
+            "pressure": quantity(fluid.critical_pressure, p_unit),
+        },
+        "triple_point": {
+            "temperature": quantity(fluid.triple_temperature, t_unit),
+            "pressure": quantity(fluid.triple_pressure, p_unit),
+        },
+        "method": fluid.method,
+        "source": fluid.source,
+        "constants_source": fluid.constants_source,
+    }
+
+
+@blueprint.get("/v1/fluids")
+def list_fluids() -> Response:
+    loaded = FluidSearchQuery().load(query_args())
+    found = catalog().search(loaded["q"]) if loaded.get("q") else list(catalog().fluids.values())
+    units = _units(loaded)
+    return current_app.json.response({"count": len(found), "fluids": [summary(f, *units) for f in found]})
+
+
+@blueprint.get("/v1/fluids/<name>")
+def fluid_detail(name: str) -> Response:
+    loaded = FluidQuery().load(query_args())
+    return current_app.json.response(detail(resolve_fluid(name), *_units(loaded)))

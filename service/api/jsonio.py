@@ -1,0 +1,25 @@
+"""Flask JSON provider on orjson: fast, strict (no NaN), numpy-aware."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import orjson
+from flask import Response
+from flask.json.provider import JSONProvider
+
+_OPTIONS = orjson.OPT_SERIALIZE_NUMPY
+
+
+class OrjsonProvider(JSONProvider):
+    """Encode with orjson; decoding refuses NaN and Infinity, which JSON does not have."""
+
+    def dumps(self, obj: Any, **kwargs: Any) -> str:
+        return orjson.dumps(obj, option=_OPTIONS).decode()
+
+    def loads(self, s: str | bytes, **kwargs: Any) -> Any:
+        return orjson.loads(s)
+
+    def response(self, *args: Any, **kwargs: Any) -> Response:
+        body = orjson.dumps(self._prepare_response_obj(args, kwargs), option=_OPTIONS)
+        return self._app.response_class(body, mimetype="application/json")

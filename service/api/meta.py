@@ -1,0 +1,41 @@
+"""Index, health, readiness and the OpenAPI document."""
+
+from __future__ import annotations
+
+from flask import Blueprint, Response, current_app
+
+from service.api.problems import Problem
+from service.config import VERSION
+
+blueprint = Blueprint("meta", __name__)
+
+
+@blueprint.get("/")
+def index() -> Response:
+    paths = sorted({rule.rule for rule in current_app.url_map.iter_rules() if rule.endpoint != "static"})
+    return current_app.json.response(
+        {
+            "service": "boiling-point service",
+            "version": VERSION,
+            "paths": paths,
+            "documentation": "/openapi.json",
+        }
+    )
+
+
+@blueprint.get("/healthz")
+def healthz() -> Response:
+    return current_app.json.response({"status": "ok"})
+
+
+@blueprint.get("/readyz")
+def readyz() -> Response:
+    catalog = current_app.extensions.get("catalog")
+    if catalog is None or not catalog.fluids:
+        raise Problem(503, "The fluid catalog is not loaded yet.")
+    return current_app.json.response({"status": "ready", "fluids": len(catalog.fluids)})
+
+
+@blueprint.get("/openapi.json")
+def openapi_document() -> Response:
+    return current_app.json.response(current_app.extensions["openapi"])

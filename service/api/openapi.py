@@ -1,0 +1,253 @@
+"""The OpenAPI 3.1 document, generated from the marshmallow schemas.
+
+``python -m service openapi`` prints it as YAML; ``make openapi`` writes it to
+``openapi/openapi.yaml`` and ``make openapi-check`` fails when the committed file drifts.
+Example answers are computed by the service itself from the example requests.
+"""
+
+from __future__ import annotations
+
+import math
+from typing import Any
+
+import yaml
+from apispec import APISpec
+from apispec.ext.marshmallow import MarshmallowPlugin
+from flask import current_app
+
+from service.api import schemas
+from service.api.fluids import FluidQuery, FluidSearchQuery
+from service.api.operations import OPERATIONS, Operation
+from service.api.problems import PROBLEM_TYPE, TITLES, problem_type
+from service.api.quantities import QuantityField
+from service.config import VERSION
+
+DESCRIPTION = """\
+Boiling points where the liquid really is: convert an elevation or a barometer reading to
+absolute pressure with the U.S. Standard Atmosphere 1976, find the boiling point of water or
+a catalog fluid at that pressure (absolute, or gauge relative to the local atmosphere), the
+vapor pressure at a temperature, and the reverse lookups. Every answer carries units, the
+equation's published name, its source and warnings.
+
+Conventions: JSON bodies with snake_case fields; every physical quantity is
+`{"value": ..., "unit": ...}`; `pressure` is absolute, `gauge_pressure` is relative to the local
+atmosphere; `pressure_unit`, `temperature_unit` and `length_unit` set the units of every input
+and output of their dimension (defaults kPa, degC, m). Errors are RFC 9457
+`application/problem+json`. Each computing path answers GET (query string, single values) and
+POST (JSON body; any quantity may be an array; arrays broadcast against single values).
+
+Caution: the answers are engineering estimates from published correlations. They do not
+replace the design codes for pressure equipment and steam systems, a pump maker's NPSH data,
+or a validated process authority's thermal process for food at altitude. Decisions that bear
+on safety belong to licensed engineers under the local codes.
+
+Examples are set at an invented site: the Kessock Fell creamery and bioethanol plant, 1,420 m
+above sea level.
+"""
+
+
+class _PlainDumper(yaml.SafeDumper):
+    """YAML without anchors and aliases, so the file reads top to bottom."""
+
+    def ignore_aliases(self, data: Any) -> bool:
+        return True
+
+
+def _text(dumper: yaml.SafeDumper, data: str) -> yaml.ScalarNode:
+    return dumper.represent_scalar("tag:yaml.org,2002:str", data, style="|" if "\n" in data else None)
+
+
+_PlainDumper.add_representer(str, _text)
+
+
+def _paragraphs(text: str) -> str:
+    """Hard-wrapped source text as one line per paragraph, for the document."""
+    return "\n\n".join(" ".join(p.split()) for p in text.split("\n\n"))
+
+
+def _quantity_property(self: Any, field: Any, **kwargs: Any) -> dict[str, Any]:
+    """JSON Schema of a :class:`QuantityField`: a number, an array, or ``{value, unit}``."""
+    if not isinstance(field, QuantityField):
+        return {}
+    numbers = [{"type": "number"}, {"type": "array", "items": {"type": "number"}}]
+    return {
+        "oneOf": [
+            *numbers,
+            {
+                "type": "object",
+                "required": ["value"],
+                "additionalProperties": False,
+                "properties": {"value": {"oneOf": numbers}, "unit": {"type": "string"}},
+            },
+        ]
+    }
+
+
+def _rounded(value: Any) -> Any:
+    """Examples to 6 significant digits, so the document does not depend on the last bit."""
+    if isinstance(value, float):
+        return float(f"{value:.6g}") if math.isfinite(value) else value
+    if isinstance(value, list):
+        return [_rounded(v) for v in value]
+    if isinstance(value, dict):
+        return {k: _rounded(v) for k, v in value.items()}
+    return value
+
+
+def _problem_responses(statuses: tuple[int, ...]) -> dict[str, Any]:
+    return {
+        str(s): {
+            "description": TITLES[s],
+            "content": {PROBLEM_TYPE: {"schema": "Problem"}},
+        }
+        for s in statuses
+    }
+
+
+def _array_example(operation: Operation) -> dict[str, Any]:
+    """The GET example with its first quantity turned into a short array."""
+    body = dict(operation.example)
+    first = next(k for k in body if k in operation.inputs)
+    body[first] = [round(body[first] * f, 1) for f in (0.9, 1.0, 1.1)]
+    return body
+
+
+def _computing_paths(spec: APISpec, operation: Operation) -> None:
+    get_answer = operation.compute(operation.parse(operation.example, operation.query_schema))
+    array_body = _array_example(operation)
+    post_answer = operation.compute(operation.parse(array_body, operation.body_schema))
+    tag = operation.path.split("/")[2]
+    common = {"tags": [tag], "summary": operation.summary, "description": operation.description}
+    spec.path(
+        path=operation.path,
+        operations={
+            "get": {
+                **common,
+                "operationId": f"get{operation.name}",
+                "parameters": [{"in": "query", "schema": operation.query_schema}],
+                "responses": {
+                    "200": {
+                        "description": "The answer.",
+                        "content": {
+                            "application/json": {"schema": operation.response, "example": _rounded(get_answer)}
+                        },
+                    },
+                    **_problem_responses(operation.errors),
+                },
+            },
+            "post": {
+                **common,
+                "operationId": f"post{operation.name}",
+                "parameters": [{"in": "query", "schema": operation.units_schema}],
+                "requestBody": {
+                    "required": True,
+                    "content": {"application/json": {"schema": operation.body_schema, "example": array_body}},
+                },
+                "responses": {
+                    "200": {
+                        "description": "The answer; arrays where the request sent arrays.",
+                        "content": {
+                            "application/json": {"schema": operation.response, "example": _rounded(post_answer)}
+                        },
+                    },
+                    **_problem_responses((*operation.errors, 413, 415)),
+                },
+            },
+        },
+    )
+
+
+def _json(schema: Any, description: str = "The answer.") -> dict[str, Any]:
+    return {"description": description, "content": {"application/json": {"schema": schema}}}
+
+
+def build_document() -> dict[str, Any]:
+    """The whole OpenAPI 3.1 document as a dict (needs an application context)."""
+    spec = APISpec(
+        title="Boiling-point service",
+        version=VERSION,
+        openapi_version="3.1.0",
+        plugins=[MarshmallowPlugin()],
+        info={"description": _paragraphs(DESCRIPTION), "license": {"name": "MIT", "identifier": "MIT"}},
+        servers=[{"url": "/", "description": "this service"}],
+    )
+    spec.plugins[0].converter.add_attribute_function(_quantity_property)  # type: ignore[attr-defined]
+    spec.components.schema("Problem", schema=schemas.Problem)
+    for operation in OPERATIONS:
+        _computing_paths(spec, operation)
+    spec.path(
+        path="/v1/fluids",
+        operations={
+            "get": {
+                "tags": ["fluids"],
+                "operationId": "listFluids",
+                "summary": "List or search the fluid catalog",
+                "parameters": [{"in": "query", "schema": FluidSearchQuery}],
+                "responses": {"200": _json(schemas.FluidList), **_problem_responses((400,))},
+            }
+        },
+    )
+    spec.path(
+        path="/v1/fluids/{name}",
+        operations={
+            "get": {
+                "tags": ["fluids"],
+                "operationId": "getFluid",
+                "summary": "One fluid: identity, fixed points, equation and source",
+                "parameters": [
+                    {
+                        "in": "path",
+                        "name": "name",
+                        "required": True,
+                        "schema": {"type": "string"},
+                        "description": "Catalog id, CAS registry number or alias.",
+                        "example": "water",
+                    },
+                    {"in": "query", "schema": FluidQuery},
+                ],
+                "responses": {"200": _json(schemas.FluidDetail), **_problem_responses((400, 404))},
+            }
+        },
+    )
+    for path, operation_id, summary, schema, errors in (
+        ("/", "index", "The paths this service answers", schemas.Index, ()),
+        ("/healthz", "healthz", "Liveness: the process answers", schemas.Health, ()),
+        ("/readyz", "readyz", "Readiness: the catalog is loaded", schemas.Health, (503,)),
+    ):
+        spec.path(
+            path=path,
+            operations={
+                "get": {
+                    "tags": ["service"],
+                    "operationId": operation_id,
+                    "summary": summary,
+                    "responses": {"200": _json(schema), **_problem_responses(errors)},
+                }
+            },
+        )
+    spec.path(
+        path="/openapi.json",
+        operations={
+            "get": {
+                "tags": ["service"],
+                "operationId": "openapi",
+                "summary": "This document, as JSON",
+                "responses": {
+                    "200": {
+                        "description": "The OpenAPI document.",
+                        "content": {"application/json": {"schema": {"type": "object"}}},
+                    }
+                },
+            }
+        },
+    )
+    document = spec.to_dict()
+    document["components"]["schemas"]["Problem"]["properties"]["type"]["examples"] = [problem_type(422)]
+    return document
+
+
+def document_yaml() -> str:
+    """The document as YAML, as committed in ``openapi/openapi.yaml``."""
+    return yaml.dump(
+        current_app.extensions["openapi"], Dumper=_PlainDumper, sort_keys=False, allow_unicode=True, width=100
+    )

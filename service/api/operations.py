@@ -1,0 +1,176 @@
+"""Computing operations: one declaration gives the GET and POST views and their OpenAPI entry.
+
+Each operation names its input quantities once. From that list come the query-string
+schema of its GET (plain numbers in the request's units), the JSON-body schema of its POST
+(numbers, arrays, or ``{"value", "unit"}`` objects), and the parser that turns either into
+SI numpy arrays broadcast to one shape, ready for one vectorised call into the physics.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Mapping
+from dataclasses import dataclass, field
+from typing import Any
+
+import numpy as np
+from flask import Blueprint, Response, current_app, request
+from marshmallow import Schema, fields
+from numpy.typing import NDArray
+from werkzeug.exceptions import BadRequest
+
+from service.api.problems import Problem, invalid
+from service.api.quantities import Quantity, QuantityField, UnitField
+from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
+
+UNIT_DESCRIPTIONS = {
+    "pressure": "Unit of every pressure in the request and the answer.",
+    "temperature": "Unit of every temperature in the request and the answer.",
+    "length": "Unit of every elevation and length in the request and the answer.",
+}
+
+
+OPERATIONS: list[Operation] = []
+"""Every registered computing operation, in registration order."""
+
+
+@dataclass(frozen=True)
+class Input:
+    """One input quantity of an operation."""
+
+    dimension: Dimension
+    description: str
+    required: bool = False
+
+
+@dataclass(frozen=True)
+class Inputs:
+    """A parsed request: SI arrays of one shape, units, and the other options."""
+
+    values: dict[str, NDArray[np.float64]]
+    units: dict[str, Unit]
+    options: dict[str, Any]
+    shape: tuple[int, ...]
+
+    def get(self, name: str) -> NDArray[np.float64] | None:
+        return self.values.get(name)
+
+
+@dataclass
+class Operation:
+    """A computing path, answered on GET (query string) and POST (JSON body)."""
+
+    path: str
+    name: str
+    summary: str
+    description: str
+    inputs: Mapping[str, Input]
+    options: Mapping[str, fields.Field]
+    dimensions: tuple[Dimension, ...]
+    response: type[Schema]
+    compute: Callable[[Inputs], dict[str, Any]]
+    example: dict[str, Any]
+    errors: tuple[int, ...] = (400, 404, 422)
+    """Problem statuses of the GET; the POST adds 413 and 415."""
+    query_schema: type[Schema] = field(init=False)
+    body_schema: type[Schema] = field(init=False)
+    units_schema: type[Schema] = field(init=False)
+
+    def __post_init__(self) -> None:
+        units = {f"{d}_unit": UnitField(d, metadata={"description": UNIT_DESCRIPTIONS[d]}) for d in self.dimensions}
+        query = {
+            n: fields.Float(
+                allow_nan=False,
+                required=s.required,
+                metadata={"description": f"{s.description} In `{s.dimension}_unit`."},
+            )
+            for n, s in self.inputs.items()
+        }
+        body = {
+            n: QuantityField(
+                s.dimension,
+                required=s.required,
+                metadata={
+                    "description": f"{s.description} A number, an array of "
+                    f"numbers, or an object with `value` and `unit`."
+                },
+            )
+            for n, s in self.inputs.items()
+        }
+        self.query_schema = Schema.from_dict(name=f"{self.name}Query", fields={**query, **units, **self.options})
+        self.body_schema = Schema.from_dict(name=f"{self.name}Body", fields={**body, **units, **self.options})
+        self.units_schema = Schema.from_dict(name=f"{self.name}Units", fields=units)
+
+    def parse(self, data: Mapping[str, Any], schema: type[Schema]) -> Inputs:
+        """Load ``data`` with ``schema`` and convert its quantities to broadcast SI arrays."""
+        loaded = schema().load(data)
+        units = {d: loaded.pop(f"{d}_unit", None) or resolve_unit(DEFAULT_UNITS[d], d) for d in self.dimensions}
+        values: dict[str, NDArray[np.float64]] = {}
+        for name, spec in self.inputs.items():
+            if name not in loaded:
+                continue
+            raw = loaded.pop(name)
+            given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
+            unit = given.unit or units[spec.dimension]
+            values[name] = given.value * unit.scale + unit.offset
+        shape = _broadcast_shape(values)
+        limit = current_app.config["MAX_POINTS"]
+        size = int(np.prod(shape)) if shape else 1
+        if size > limit:
+            raise Problem(413, f"{size} points in one request; the limit is {limit}.")
+        values = {k: np.broadcast_to(v, shape) for k, v in values.items()}
+        return Inputs(values, units, loaded, shape)
+
+    def view(self) -> Response:
+        if request.method == "GET":
+            inputs = self.parse(query_args(), self.query_schema)
+        else:
+            inputs = self.parse(_json_body(set(self.dimensions)), self.body_schema)
+        return current_app.json.response(self.compute(inputs))
+
+    def register(self, blueprint: Blueprint) -> None:
+        """Answer GET and POST on ``blueprint`` and list the operation in the OpenAPI document."""
+        blueprint.add_url_rule(self.path, self.name, self.view, methods=["GET", "POST"])
+        OPERATIONS.append(self)
+
+
+def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
+    shapes = {name: v.shape for name, v in values.items()}
+    try:
+        shape = np.broadcast_shapes(*shapes.values())
+    except ValueError:
+        lengths = ", ".join(f"{n} has {s[0]}" for n, s in shapes.items() if s)
+        raise Problem(
+            400,
+            f"arrays must have one length (or be single numbers): {lengths}",
+            {n: [f"length {s[0]}"] for n, s in shapes.items() if s},
+        ) from None
+    return shape
+
+
+def query_args() -> dict[str, str]:
+    """The query string as a dict; a parameter given twice is refused."""
+    args = request.args
+    for key in args:
+        if len(args.getlist(key)) > 1:
+            raise invalid(key, "given more than once")
+    return args.to_dict()
+
+
+def _json_body(dimensions: set[str]) -> dict[str, Any]:
+    if not request.is_json:
+        raise Problem(415, "POST bodies are JSON: send Content-Type: application/json.")
+    try:
+        body = request.get_json()
+    except BadRequest:
+        raise invalid(
+            "body", "is not valid JSON (NaN, Infinity and numbers beyond double range are not JSON)"
+        ) from None
+    if not isinstance(body, dict):
+        raise invalid("body", "must be a JSON object")
+    for key, value in query_args().items():
+        if key.removesuffix("_unit") not in dimensions or not key.endswith("_unit"):
+            raise invalid(key, "a POST takes only unit parameters in its query string")
+        if key in body and body[key] != value:
+            raise invalid(key, "given in the query string and the body with different values")
+        body[key] = value
+    return body

@@ -1,0 +1,116 @@
+"""RFC 9457 problem responses: every error the service gives, in one shape."""
+
+from __future__ import annotations
+
+import logging
+from collections.abc import Mapping, Sequence
+
+from flask import Flask, Response, current_app
+from marshmallow import ValidationError
+from werkzeug.exceptions import HTTPException
+
+PROBLEM_TYPE = "application/problem+json"
+_LOG = logging.getLogger(__name__)
+
+TITLES = {
+    400: "Invalid input",
+    404: "Not found",
+    405: "Method not allowed",
+    406: "Not acceptable",
+    413: "Request too large",
+    414: "Request URI too long",
+    415: "Unsupported media type",
+    422: "Outside the valid range",
+    500: "Internal error",
+    503: "Not ready",
+}
+_SLUGS = {
+    400: "invalid-input",
+    404: "not-found",
+    405: "method-not-allowed",
+    406: "not-acceptable",
+    413: "too-large",
+    414: "uri-too-long",
+    415: "unsupported-media-type",
+    422: "out-of-range",
+    500: "internal-error",
+    503: "not-ready",
+}
+
+
+def problem_type(status: int) -> str:
+    """The ``type`` URI of a problem with ``status``."""
+    return f"urn:boiling-point:problem:{_SLUGS.get(status, 'http-error')}"
+
+
+class Problem(Exception):
+    """An error answered as ``application/problem+json``."""
+
+    def __init__(self, status: int, detail: str, errors: Mapping[str, Sequence[str]] | None = None) -> None:
+        super().__init__(detail)
+        self.status = status
+        self.detail = detail
+        self.errors = {k: list(v) for k, v in (errors or {}).items()}
+
+
+def invalid(field: str, message: str) -> Problem:
+    """A 400 problem about one field."""
+    return Problem(400, f"{field}: {message}", {field: [message]})
+
+
+def problem_response(problem: Problem) -> Response:
+    body = {
+        "type": problem_type(problem.status),
+        "title": TITLES.get(problem.status, "HTTP error"),
+        "status": problem.status,
+        "detail": problem.detail,
+    }
+    if problem.errors:
+        body["errors"] = problem.errors
+    response = current_app.json.response(body)
+    response.status_code = problem.status
+    response.mimetype = PROBLEM_TYPE
+    return response
+
+
+def _flatten(messages: object, prefix: str = "") -> dict[str, list[str]]:
+    """marshmallow's nested messages as ``{"field.sub": [message, ...]}``."""
+    if isinstance(messages, Mapping):
+        out: dict[str, list[str]] = {}
+        for key, value in messages.items():
+            out.update(_flatten(value, f"{prefix}{key}." if prefix or key != "_schema" else ""))
+        return out
+    if isinstance(messages, str):
+        messages = [messages]
+    return {prefix.rstrip(".") or "request": [str(m) for m in messages]}  # type: ignore[union-attr]
+
+
+def validation_problem(error: ValidationError) -> Problem:
+    errors = _flatten(error.normalized_messages())
+    detail = "; ".join(f"{field}: {' '.join(msgs)}" for field, msgs in errors.items())
+    return Problem(400, detail, errors)
+
+
+def register_problem_handlers(app: Flask) -> None:
+    """Answer every error, the framework's own included, as a problem."""
+
+    @app.errorhandler(Problem)
+    def _problem(problem: Problem) -> Response:
+        return problem_response(problem)
+
+    @app.errorhandler(ValidationError)
+    def _validation(error: ValidationError) -> Response:
+        return problem_response(validation_problem(error))
+
+    @app.errorhandler(HTTPException)
+    def _http(error: HTTPException) -> Response:
+        status = error.code or 500
+        response = problem_response(Problem(status, error.description or TITLES.get(status, "HTTP error")))
+        if status == 405 and error.get_response().allow:
+            response.allow.update(error.get_response().allow)
+        return response
+
+    @app.errorhandler(Exception)
+    def _unexpected(error: Exception) -> Response:
+        _LOG.exception("unhandled error")
+        return problem_response(Problem(500, "The service could not compute this answer; the error was logged."))

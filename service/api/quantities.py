@@ -1,0 +1,96 @@
+"""Physical quantities at the HTTP edge: parse values and units in, format them out."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Any
+
+import numpy as np
+from marshmallow import ValidationError, fields
+from numpy.typing import NDArray
+
+from service.physics.units import Dimension, Unit, codes, resolve_unit
+
+
+@dataclass(frozen=True)
+class Quantity:
+    """Numbers as sent, with the unit the request gave them (None: the request's default)."""
+
+    value: NDArray[np.float64]
+    unit: Unit | None = None
+
+
+def finite_numbers(value: Any) -> NDArray[np.float64]:
+    """A number or a flat list of numbers as a float array; ValidationError otherwise."""
+    if isinstance(value, bool) or not isinstance(value, int | float | list):
+        raise ValidationError("must be a number or an array of numbers")
+    if isinstance(value, list) and not set(map(type, value)) <= {int, float}:
+        raise ValidationError("an array must hold numbers only")
+    array = np.asarray(value, dtype=float)
+    if not np.isfinite(array).all():
+        raise ValidationError("numbers must be finite")
+    return array
+
+
+class UnitField(fields.String):
+    """A unit code or alias of one dimension, loaded as a :class:`Unit`."""
+
+    def __init__(self, dimension: Dimension, **kwargs: Any) -> None:
+        self.dimension = dimension
+        metadata = kwargs.pop("metadata", {})
+        accepted = f"One of {', '.join(codes(dimension))}; common aliases (such as psia, mbar, °C, F) are accepted."
+        metadata = {**metadata, "description": f"{metadata.get('description', '')} {accepted}".strip()}
+        super().__init__(metadata=metadata, **kwargs)
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> Unit:
+        text = super()._deserialize(value, attr, data, **kwargs)
+        try:
+            return resolve_unit(text, self.dimension)
+        except KeyError as exc:
+            raise ValidationError(exc.args[0]) from exc
+
+
+class QuantityField(fields.Field):
+    """A quantity in a JSON body: a number, an array of numbers, or ``{"value", "unit"}``."""
+
+    def __init__(self, dimension: Dimension, **kwargs: Any) -> None:
+        self.dimension = dimension
+        super().__init__(**kwargs)
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> Quantity:
+        if not isinstance(value, dict):
+            return Quantity(finite_numbers(value))
+        if "value" not in value or set(value) - {"value", "unit"}:
+            raise ValidationError('a quantity object has "value" and an optional "unit"')
+        unit = value.get("unit")
+        if unit is None:
+            return Quantity(finite_numbers(value["value"]))
+        if not isinstance(unit, str):
+            raise ValidationError("unit must be a string")
+        try:
+            return Quantity(finite_numbers(value["value"]), resolve_unit(unit, self.dimension))
+        except KeyError as exc:
+            raise ValidationError(exc.args[0]) from exc
+
+
+DENSITY = Unit("kg/m3", "density", 1.0)  # type: ignore[arg-type]
+"""The one unit densities are given in."""
+
+
+def quantity(value_si: NDArray | float, unit: Unit) -> dict[str, Any]:
+    """``{"value", "unit"}`` for an SI value or array, converted to ``unit``."""
+    return {"value": _plain((np.asarray(value_si) - unit.offset) / unit.scale), "unit": unit.code}
+
+
+def ratio(value_si: NDArray | float, top: Unit, bottom: Unit) -> dict[str, Any]:
+    """A slope such as dT/dp as ``{"value", "unit": "degC/kPa"}``; temperatures count as differences."""
+    return {"value": _plain(np.asarray(value_si) * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
+
+
+def _plain(array: NDArray) -> float | list[float]:
+    return array.tolist() if array.ndim else float(array)
+
+
+def format_value(value_si: float, unit: Unit) -> str:
+    """An SI value shown in ``unit`` for a message, e.g. ``'0.611657 kPa'``."""
+    return f"{(value_si - unit.offset) / unit.scale:.6g} {unit.code}"

@@ -1,0 +1,265 @@
+"""Rules shared by the computing paths: fluid lookup, local pressure, validity limits.
+
+Each rule takes SI arrays, refuses what the physics cannot answer with a problem that
+names the limit in the request's own unit, and appends cautions to ``warnings``.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+from flask import current_app
+from numpy.typing import NDArray
+
+from service.api.operations import Inputs
+from service.api.problems import Problem
+from service.api.quantities import format_value
+from service.fluids.catalog import Catalog, Fluid
+from service.physics import atmosphere
+from service.physics.units import Unit
+
+NEAR_CRITICAL = 0.98
+"""Warn above this fraction of the critical temperature."""
+SEA_LEVEL_PRESSURE_RANGE = (85e3, 110e3)
+"""Plausible reduced sea-level pressures [Pa]; the recorded extremes lie inside it."""
+_MAX_LISTED = 10
+
+STANDARD_ATMOSPHERE_WARNING = (
+    "The local atmospheric pressure is the U.S. Standard Atmosphere 1976 value for the given "
+    "elevation, not a measurement: real barometric pressure departs from it with the weather by a "
+    "few percent (typically within 3 %). Send barometric_pressure for a measured value."
+)
+
+
+def catalog() -> Catalog:
+    return current_app.extensions["catalog"]
+
+
+def resolve_fluid(name: str) -> Fluid:
+    """The catalog fluid named ``name``; 404 listing the closest names otherwise."""
+    fluid = catalog().get(name)
+    if fluid is None:
+        close = catalog().close_matches(name)
+        hint = f" Closest matches: {', '.join(close)}." if close else ""
+        raise Problem(
+            404,
+            f"No fluid named {name!r} in the catalog.{hint} GET /v1/fluids lists them all.",
+            {"fluid": [f"unknown fluid {name!r}"]},
+        )
+    return fluid
+
+
+def refuse_outside(
+    field: str,
+    values: NDArray,
+    unit: Unit,
+    low: NDArray | float | None,
+    high: NDArray | float | None,
+    below: str,
+    above: str,
+) -> None:
+    """Answer 422 when any of ``values`` lies below ``low`` or above ``high`` [SI].
+
+    ``below`` and ``above`` describe the limits, with ``{limit}`` where the limit's value in
+    ``unit`` goes; the messages give each bad value, with its index in an array request.
+    """
+    lows = np.broadcast_to(-np.inf if low is None else low, values.shape)
+    highs = np.broadcast_to(np.inf if high is None else high, values.shape)
+    too_low, too_high = values < lows, values > highs
+    bad = too_low | too_high
+    if not bad.any():
+        return
+    messages = []
+    for index in np.flatnonzero(bad)[:_MAX_LISTED]:
+        value = format_value(float(values.flat[index]), unit)
+        if too_low.flat[index]:
+            text = f"{value} is below " + below.format(limit=format_value(float(lows.flat[index]), unit))
+        else:
+            text = f"{value} is above " + above.format(limit=format_value(float(highs.flat[index]), unit))
+        messages.append(f"index {index}: {text}" if values.ndim else text)
+    count = int(bad.sum())
+    if count > len(messages):
+        messages.append(f"and {count - len(messages)} more")
+    raise Problem(
+        422, f"{field}: {messages[0]}" + (f" ({count} values in all)" if count > 1 else ""), {field: messages}
+    )
+
+
+@dataclass(frozen=True)
+class LocalPressure:
+    """The absolute pressure a request describes [Pa], and whether the standard atmosphere gave it."""
+
+    value: NDArray[np.float64]
+    standard_atmosphere: bool
+
+
+def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
+    """Absolute air pressure on site [Pa] from ``barometric_pressure`` or ``elevation``, if given."""
+    baro, elevation = inputs.get("barometric_pressure"), inputs.get("elevation")
+    sea_level = inputs.get("sea_level_pressure")
+    if baro is not None and elevation is not None:
+        raise Problem(
+            400,
+            "Give barometric_pressure or elevation for the local atmosphere, not both.",
+            {"barometric_pressure": ["conflicts with elevation"], "elevation": ["conflicts with barometric_pressure"]},
+        )
+    if sea_level is not None and elevation is None:
+        raise Problem(
+            400,
+            "sea_level_pressure scales the standard atmosphere and needs elevation.",
+            {"sea_level_pressure": ["needs elevation"]},
+        )
+    if baro is not None:
+        refuse_outside(
+            "barometric_pressure",
+            baro,
+            inputs.units["pressure"],
+            0.0,
+            None,
+            "zero ({limit}): an absolute pressure is positive",
+            "",
+        )
+        return baro
+    if elevation is None:
+        return None
+    refuse_outside(
+        "elevation",
+        elevation,
+        inputs.units["length"],
+        atmosphere.MIN_ELEVATION,
+        atmosphere.MAX_ELEVATION,
+        "the bottom of the standard atmosphere, {limit}",
+        "the top of the standard atmosphere, {limit}",
+    )
+    return atmosphere.pressure_at_elevation(elevation, sea_level_pressure(inputs))
+
+
+def sea_level_pressure(inputs: Inputs) -> NDArray[np.float64] | float:
+    """The request's ``sea_level_pressure`` [Pa], checked for plausibility, or the standard 101 325 Pa."""
+    sea_level = inputs.get("sea_level_pressure")
+    if sea_level is None:
+        return atmosphere.SEA_LEVEL_PRESSURE
+    low, high = SEA_LEVEL_PRESSURE_RANGE
+    refuse_outside(
+        "sea_level_pressure",
+        sea_level,
+        inputs.units["pressure"],
+        low,
+        high,
+        "the lowest plausible sea-level pressure, {limit}",
+        "the highest plausible sea-level pressure, {limit}",
+    )
+    return sea_level
+
+
+def local_pressure(inputs: Inputs) -> LocalPressure:
+    """The absolute pressure [Pa]: ``pressure``, or the local atmosphere plus ``gauge_pressure``."""
+    pressure, gauge = inputs.get("pressure"), inputs.get("gauge_pressure")
+    site = ("barometric_pressure", "elevation", "sea_level_pressure")
+    if pressure is not None:
+        extra = [name for name in ("gauge_pressure", *site) if inputs.get(name) is not None]
+        if extra:
+            raise Problem(
+                400,
+                f"pressure is absolute and stands alone; leave out {', '.join(extra)} "
+                "(or send gauge_pressure instead of pressure).",
+                {name: ["conflicts with pressure"] for name in extra},
+            )
+        refuse_outside(
+            "pressure",
+            pressure,
+            inputs.units["pressure"],
+            0.0,
+            None,
+            "zero ({limit}): an absolute pressure is positive",
+            "",
+        )
+        return LocalPressure(pressure, False)
+    atmosphere_pressure = local_atmosphere(inputs)
+    if atmosphere_pressure is None:
+        field = "gauge_pressure" if gauge is not None else "pressure"
+        raise Problem(
+            400,
+            "Give pressure (absolute), or elevation or barometric_pressure (open to the "
+            "atmosphere), or gauge_pressure with barometric_pressure or elevation.",
+            {field: ["missing" if field == "pressure" else "needs barometric_pressure or elevation"]},
+        )
+    standard = inputs.get("barometric_pressure") is None
+    if gauge is None:
+        return LocalPressure(atmosphere_pressure, standard)
+    refuse_outside(
+        "gauge_pressure",
+        gauge,
+        inputs.units["pressure"],
+        -atmosphere_pressure,
+        None,
+        "{limit}, the deepest vacuum the local atmosphere allows",
+        "",
+    )
+    absolute = atmosphere_pressure + gauge
+    return LocalPressure(absolute, standard)
+
+
+def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapolate: bool, warnings: list[str]) -> None:
+    """Refuse pressures at which ``fluid`` has no boiling point; note extrapolation."""
+    refuse_outside(
+        "pressure",
+        pressure,
+        unit,
+        fluid.triple_pressure,
+        fluid.critical_pressure,
+        f"the triple-point pressure of {fluid.name}, {{limit}}: below it the solid sublimes instead of boiling",
+        f"the critical pressure of {fluid.name}, {{limit}}: above it liquid and vapor no longer differ",
+    )
+    _check_stated_range("pressure", pressure, unit, fluid.p_min, fluid.p_max, fluid, extrapolate, warnings)
+
+
+def check_liquid_temperature(
+    fluid: Fluid, temperature: NDArray, unit: Unit, extrapolate: bool, warnings: list[str], field: str = "temperature"
+) -> None:
+    """Refuse temperatures at which ``fluid`` has no vapor pressure over its liquid; note extrapolation."""
+    refuse_outside(
+        field,
+        temperature,
+        unit,
+        fluid.triple_temperature,
+        fluid.critical_temperature,
+        f"the triple-point temperature of {fluid.name}, {{limit}}: below it the liquid freezes",
+        f"the critical temperature of {fluid.name}, {{limit}}: above it there is no liquid",
+    )
+    _check_stated_range(field, temperature, unit, fluid.t_min, fluid.t_max, fluid, extrapolate, warnings)
+
+
+def _check_stated_range(
+    field: str,
+    values: NDArray,
+    unit: Unit,
+    low: float,
+    high: float,
+    fluid: Fluid,
+    extrapolate: bool,
+    warnings: list[str],
+) -> None:
+    outside = (values < low) | (values > high)
+    if not outside.any():
+        return
+    where = f"the stated range of the {fluid.method} for {fluid.name}"
+    if not extrapolate:
+        beyond = f"{where}, {{limit}} (send extrapolate=true to extrapolate)"
+        refuse_outside(field, values, unit, low, high, beyond, beyond)
+    warnings.append(
+        f"{int(outside.sum())} value(s) of {field} lie outside {where}, "
+        f"{format_value(low, unit)} to {format_value(high, unit)}: extrapolated, accuracy unknown."
+    )
+
+
+def note_near_critical(fluid: Fluid, temperature: NDArray, unit: Unit, warnings: list[str]) -> None:
+    """Warn when a saturation temperature lies within 2 % of the critical temperature."""
+    near = temperature > NEAR_CRITICAL * fluid.critical_temperature
+    if near.any():
+        warnings.append(
+            f"{int(near.sum())} value(s) lie within 2 % of the critical temperature of {fluid.name} "
+            f"({format_value(fluid.critical_temperature, unit)}): properties change steeply there and small "
+            "errors in pressure or temperature grow large."
+        )

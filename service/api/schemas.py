@@ -1,0 +1,157 @@
+"""Response schemas: the shape of every answer, as the OpenAPI document publishes it.
+
+Views build their answers as plain dicts (no per-request serialization pass); the
+contract tests validate every answer against the document these schemas generate.
+"""
+
+from __future__ import annotations
+
+from marshmallow import Schema, fields
+
+from service.physics.units import codes
+
+_NUMBERS = {"oneOf": [{"type": "number"}, {"type": "array", "items": {"type": "number"}}]}
+
+
+def _quantity_schema(name: str, unit: dict[str, object]) -> type[Schema]:
+    return Schema.from_dict(
+        {
+            "value": fields.Raw(
+                required=True, metadata={**_NUMBERS, "description": "A number, or an array for array requests."}
+            ),
+            "unit": fields.String(required=True, metadata=unit),
+        },
+        name=name,
+    )
+
+
+Pressure = _quantity_schema("Pressure", {"enum": codes("pressure")})
+Temperature = _quantity_schema("Temperature", {"enum": codes("temperature")})
+Length = _quantity_schema("Length", {"enum": codes("length")})
+Density = _quantity_schema("Density", {"enum": ["kg/m3"]})
+Slope = _quantity_schema(
+    "Slope",
+    {
+        "pattern": r"^[A-Za-z]+/[A-Za-z]+$",
+        "description": "A ratio of units, e.g. `degC/kPa` or `kPa/degC`; "
+        "temperatures in a slope count as differences (1 degC = 1 K, 1 degF = 1 degR).",
+    },
+)
+
+
+class Provenance(Schema):
+    """What every computed answer says of how it was computed."""
+
+    method = fields.String(required=True, metadata={"description": "The published name of the equation(s) used."})
+    source = fields.String(required=True, metadata={"description": "Citation of the equation(s)."})
+    warnings = fields.List(
+        fields.String(),
+        required=True,
+        metadata={
+            "description": "Cautions about this answer: standard atmosphere in place of a barometer, "
+            "extrapolation, nearness to the critical point."
+        },
+    )
+
+
+class BoilingPointAnswer(Provenance):
+    fluid = fields.String(required=True, metadata={"description": "Catalog id of the fluid."})
+    pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
+    boiling_point = fields.Nested(Temperature, required=True, metadata={"description": "Saturation temperature."})
+    sensitivity = fields.Nested(
+        Slope, required=True, metadata={"description": "dT/dp: how far the boiling point moves per unit of pressure."}
+    )
+
+
+class VaporPressureAnswer(Provenance):
+    fluid = fields.String(required=True)
+    temperature = fields.Nested(Temperature, required=True)
+    vapor_pressure = fields.Nested(Pressure, required=True, metadata={"description": "Saturation pressure."})
+    sensitivity = fields.Nested(Slope, required=True, metadata={"description": "dp/dT along saturation."})
+
+
+class ElevationAnswer(Provenance):
+    elevation = fields.Nested(Length, required=True, metadata={"description": "Geometric elevation."})
+    pressure = fields.Nested(Pressure, required=True, metadata={"description": "Absolute air pressure there."})
+    fluid = fields.String(metadata={"description": "Present when the lookup went through a boiling point."})
+    boiling_point = fields.Nested(Temperature, metadata={"description": "The boiling point asked for."})
+
+
+class AtmosphereAnswer(Provenance):
+    elevation = fields.Nested(Length, required=True, metadata={"description": "Geometric elevation."})
+    geopotential_height = fields.Nested(Length, required=True)
+    pressure = fields.Nested(Pressure, required=True)
+    temperature = fields.Nested(Temperature, required=True, metadata={"description": "Standard air temperature."})
+    density = fields.Nested(Density, required=True, metadata={"description": "Air density."})
+    model = fields.String(required=True, metadata={"description": "The atmosphere model and any scaling applied."})
+
+
+class FixedPoint(Schema):
+    temperature = fields.Nested(Temperature, required=True)
+    pressure = fields.Nested(Pressure, required=True)
+
+
+class ValidRange(Schema):
+    temperature_min = fields.Nested(Temperature, required=True)
+    temperature_max = fields.Nested(Temperature, required=True)
+    pressure_min = fields.Nested(Pressure, required=True)
+    pressure_max = fields.Nested(Pressure, required=True)
+
+
+class FluidSummary(Schema):
+    id = fields.String(required=True)
+    name = fields.String(required=True)
+    formula = fields.String(required=True)
+    cas = fields.String(required=True, metadata={"description": "CAS registry number."})
+    aliases = fields.List(fields.String(), required=True)
+    normal_boiling_point = fields.Nested(
+        Temperature,
+        allow_none=True,
+        required=True,
+        metadata={"description": "Boiling point at 101.325 kPa; null where the fluid does not boil at 1 atm."},
+    )
+    range = fields.Nested(
+        ValidRange, required=True, metadata={"description": "Stated range of the vapor-pressure equation."}
+    )
+
+
+class FluidDetail(FluidSummary):
+    molar_mass = fields.Float(required=True, metadata={"description": "Molar mass [kg/mol]."})
+    critical_point = fields.Nested(FixedPoint, required=True)
+    triple_point = fields.Nested(FixedPoint, required=True)
+    method = fields.String(required=True)
+    source = fields.String(required=True)
+    constants_source = fields.String(
+        required=True, metadata={"description": "Citation of the critical point, triple point and molar mass."}
+    )
+
+
+class FluidList(Schema):
+    count = fields.Integer(required=True)
+    fluids = fields.List(fields.Nested(FluidSummary), required=True)
+
+
+class Problem(Schema):
+    """RFC 9457 problem details."""
+
+    type = fields.String(required=True, metadata={"format": "uri"})
+    title = fields.String(required=True)
+    status = fields.Integer(required=True)
+    detail = fields.String(required=True)
+    errors = fields.Dict(
+        keys=fields.String(),
+        values=fields.List(fields.String()),
+        metadata={"description": "Messages by input field, for validation failures."},
+    )
+
+
+class Health(Schema):
+    status = fields.String(required=True)
+    fluids = fields.Integer(metadata={"description": "Fluids loaded (readiness only)."})
+
+
+class Index(Schema):
+    service = fields.String(required=True)
+    version = fields.String(required=True)
+    paths = fields.List(fields.String(), required=True)
+    documentation = fields.String(required=True)

@@ -1,0 +1,32 @@
+"""Settings, from environment variables only (see README, "Configuration")."""
+
+from __future__ import annotations
+
+import os
+from collections.abc import Mapping
+from importlib import metadata
+from typing import Any
+
+VERSION = metadata.version("boiling-point-service")
+"""The installed version of this service."""
+
+DEFAULTS: dict[str, Any] = {
+    "MAX_POINTS": 100_000,
+    "MAX_CONTENT_LENGTH": 16 * 1024 * 1024,
+}
+_ENVIRONMENT = {
+    "MAX_POINTS": "BOILING_MAX_POINTS",
+    "MAX_CONTENT_LENGTH": "BOILING_MAX_BODY_BYTES",
+}
+
+
+def settings(environ: Mapping[str, str] = os.environ) -> dict[str, Any]:
+    """The defaults, overridden by any ``BOILING_*`` variables set in ``environ``."""
+    out = dict(DEFAULTS)
+    for key, variable in _ENVIRONMENT.items():
+        if variable in environ:
+            try:
+                out[key] = int(environ[variable])
+            except ValueError:
+                raise SystemExit(f"{variable} must be a whole number, not {environ[variable]!r}") from None
+    return out

@@ -1,0 +1,111 @@
+"""Bad input: each gets the right 4xx problem response, never a 500."""
+
+import pytest
+
+
+def problem(response, status: int) -> dict:
+    assert response.status_code == status, response.get_json()
+    assert response.mimetype == "application/problem+json"
+    body = response.get_json()
+    assert body["status"] == status
+    assert body["type"].startswith("urn:boiling-point:problem:")
+    assert "Traceback" not in body["detail"] and "/site-packages/" not in body["detail"]
+    return body
+
+
+@pytest.mark.parametrize(
+    ("query", "status", "field"),
+    [
+        ("pressure=abc", 400, "pressure"),
+        ("pressure=nan", 400, "pressure"),
+        ("pressure=inf", 400, "pressure"),
+        ("pressure=-Infinity", 400, "pressure"),
+        ("pressure=", 400, "pressure"),
+        ("pressure=-5", 422, "pressure"),
+        ("pressure=0", 422, "pressure"),
+        ("pressure=0.5", 422, "pressure"),  # below the triple point of water
+        ("pressure=30000", 422, "pressure"),  # above the critical point
+        ("pressure=100&pressure_unit=furlong", 400, "pressure_unit"),
+        ("pressure=100&temperature_unit=kPa", 400, "temperature_unit"),
+        ("pressure=100&fluid=", 404, "fluid"),
+        ("pressure=100&extrapolate=maybe", 400, "extrapolate"),
+        ("", 400, "pressure"),
+        ("gauge_pressure=100", 400, "gauge_pressure"),
+        ("pressure=100&gauge_pressure=5", 400, "gauge_pressure"),
+        ("pressure=100&elevation=5", 400, "elevation"),
+        ("gauge_pressure=5&elevation=100&barometric_pressure=90", 400, "barometric_pressure"),
+        ("gauge_pressure=5&barometric_pressure=90&sea_level_pressure=101", 400, "sea_level_pressure"),
+        ("elevation=100&sea_level_pressure=50", 422, "sea_level_pressure"),
+        ("gauge_pressure=-90&elevation=1420", 422, "gauge_pressure"),  # vacuum deeper than the atmosphere
+        ("gauge_pressure=-5&barometric_pressure=-3", 422, "barometric_pressure"),
+        ("elevation=90000", 422, "elevation"),
+        ("pressure=100&pressure=200", 400, "pressure"),
+        ("pressure=100&colour=blue", 400, "colour"),
+    ],
+)
+def test_boiling_point_refusals(client, query: str, status: int, field: str) -> None:
+    body = problem(client.get(f"/v1/boiling-point?{query}"), status)
+    assert field in body["errors"], body
+
+
+def test_limits_are_named_in_the_request_unit(client) -> None:
+    body = problem(client.get("/v1/boiling-point?pressure=0.05&pressure_unit=psi"), 422)
+    assert "triple-point pressure of Water, 0.0887133 psi" in body["detail"]
+    body = problem(client.get("/v1/vapor-pressure?temperature=800&temperature_unit=degF"), 422)
+    assert "critical temperature of Water, 705.103 degF" in body["detail"]
+
+
+@pytest.mark.parametrize(
+    ("body", "field"),
+    [
+        ({"pressure": "100"}, "pressure"),
+        ({"pressure": True}, "pressure"),
+        ({"pressure": [1, None]}, "pressure"),
+        ({"pressure": [[1, 2]]}, "pressure"),
+        ({"pressure": {"value": 1, "unit": 5}}, "pressure"),
+        ({"pressure": {"value": 1, "unit": "K"}}, "pressure"),
+        ({"pressure": {"unit": "kPa"}}, "pressure"),
+        ({"pressure": {"value": 1, "extra": 2}}, "pressure"),
+        ({"pressure": 100, "fluid": 7}, "fluid"),
+        ({"pressure": [1, 2, 3], "elevation": [1, 2]}, "pressure"),
+    ],
+)
+def test_post_refusals(client, body: dict, field: str) -> None:
+    assert field in problem(client.post("/v1/boiling-point", json=body), 400)["errors"]
+
+
+def test_post_array_names_the_bad_indexes(client) -> None:
+    body = problem(client.post("/v1/boiling-point", json={"pressure": [100, 0.1, 50, 0.2]}), 422)
+    assert body["errors"]["pressure"][0].startswith("index 1: ")
+    assert body["errors"]["pressure"][1].startswith("index 3: ")
+    assert "2 values in all" in body["detail"]
+
+
+def test_post_body_must_be_a_json_object(client) -> None:
+    problem(client.post("/v1/boiling-point", data="pressure=100", content_type="text/plain"), 415)
+    problem(client.post("/v1/boiling-point", data="{not json", content_type="application/json"), 400)
+    problem(client.post("/v1/boiling-point", data='{"pressure": NaN}', content_type="application/json"), 400)
+    problem(client.post("/v1/boiling-point", json=[100]), 400)
+
+
+def test_post_query_takes_only_units(client) -> None:
+    problem(client.post("/v1/boiling-point?pressure=100", json={}), 400)
+    problem(client.post("/v1/boiling-point?pressure_unit=kPa", json={"pressure": 100, "pressure_unit": "psi"}), 400)
+
+
+def test_too_many_points(app, client) -> None:
+    limit = app.config["MAX_POINTS"]
+    body = problem(client.post("/v1/vapor-pressure", json={"temperature": [50.0] * (limit + 1)}), 413)
+    assert str(limit) in body["detail"]
+
+
+def test_unknown_path_and_method(client) -> None:
+    problem(client.get("/v1/boiling-points"), 404)
+    assert client.client.delete("/v1/boiling-point").status_code == 405
+
+
+def test_vapor_pressure_refusals(client) -> None:
+    problem(client.get("/v1/vapor-pressure?temperature=-1"), 422)
+    problem(client.get("/v1/vapor-pressure?temperature=374"), 422)
+    problem(client.get("/v1/vapor-pressure"), 400)
+    problem(client.get("/v1/vapor-pressure?temperature=50&fluid=xyzzy"), 404)

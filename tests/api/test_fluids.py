@@ -1,0 +1,45 @@
+"""GET /v1/fluids and /v1/fluids/<name>."""
+
+import pytest
+
+
+def test_list_has_water_with_range_and_cas(client) -> None:
+    body = client.get("/v1/fluids").get_json()
+    assert body["count"] == len(body["fluids"]) >= 1
+    water = next(f for f in body["fluids"] if f["id"] == "water")
+    assert water["cas"] == "7732-18-5"
+    assert water["range"]["pressure_min"] == {"value": pytest.approx(0.611657, abs=1e-6), "unit": "kPa"}
+    assert water["normal_boiling_point"]["value"] == pytest.approx(99.974, abs=1e-3)
+
+
+def test_search(client) -> None:
+    assert [f["id"] for f in client.get("/v1/fluids?q=h2o").get_json()["fluids"]] == ["water"]
+    assert client.get("/v1/fluids?q=no-such-thing").get_json() == {"count": 0, "fluids": []}
+
+
+def test_detail_in_requested_units(client) -> None:
+    body = client.get("/v1/fluids/steam?temperature_unit=K&pressure_unit=MPa").get_json()
+    assert body["id"] == "water"
+    assert body["critical_point"] == {
+        "temperature": {"value": 647.096, "unit": "K"},
+        "pressure": {"value": pytest.approx(22.064), "unit": "MPa"},
+    }
+    assert body["triple_point"]["temperature"] == {"value": 273.16, "unit": "K"}
+    assert body["molar_mass"] == pytest.approx(0.018015268)
+    assert "IAPWS" in body["method"] and "1993" in body["source"]
+
+
+def test_unknown_fluid_lists_close_matches(client) -> None:
+    r = client.get("/v1/fluids/watter")
+    assert r.status_code == 404
+    assert "water" in r.get_json()["detail"]
+
+
+def test_unknown_fluid_on_a_computing_path(client) -> None:
+    r = client.get("/v1/boiling-point?pressure=100&fluid=unobtainium")
+    assert r.status_code == 404
+    assert r.get_json()["errors"] == {"fluid": ["unknown fluid 'unobtainium'"]}
+
+
+def test_bad_unit_on_the_catalog(client) -> None:
+    assert client.get("/v1/fluids?temperature_unit=kelvins").status_code == 400

@@ -1,0 +1,76 @@
+"""Shared fixtures: the application, and a test client that checks every answer against
+the committed OpenAPI document (the contract tests)."""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import Any
+
+import jsonschema
+import pytest
+import yaml
+from flask import Flask
+from werkzeug.exceptions import MethodNotAllowed, NotFound
+
+from service import create_app
+
+ROOT = Path(__file__).resolve().parents[1]
+
+
+@pytest.fixture(scope="session")
+def openapi_document() -> dict[str, Any]:
+    return yaml.safe_load((ROOT / "openapi" / "openapi.yaml").read_text(encoding="utf-8"))
+
+
+@pytest.fixture(scope="session")
+def app() -> Flask:
+    return create_app()
+
+
+class ContractClient:
+    """A Flask test client whose every response must match the OpenAPI document."""
+
+    def __init__(self, app: Flask, document: dict[str, Any]) -> None:
+        self.app = app
+        self.document = document
+        self.client = app.test_client()
+
+    def get(self, path: str, **kwargs: Any) -> Any:
+        return self.check("GET", path, self.client.get(path, **kwargs))
+
+    def post(self, path: str, **kwargs: Any) -> Any:
+        return self.check("POST", path, self.client.post(path, **kwargs))
+
+    def schema_validator(self, schema: dict[str, Any]) -> jsonschema.Draft202012Validator:
+        return jsonschema.Draft202012Validator({**schema, "components": self.document["components"]})
+
+    def check(self, method: str, path: str, response: Any) -> Any:
+        template = self.template(method, path.split("?", maxsplit=1)[0])
+        body = response.get_json(force=True, silent=True) if response.data else None
+        if template is None:  # not a documented path: still a problem document
+            assert response.mimetype == "application/problem+json", response.data
+            self.schema_validator({"$ref": "#/components/schemas/Problem"}).validate(body)
+            return response
+        operation = self.document["paths"][template][method.lower()]
+        documented = operation["responses"]
+        assert str(response.status_code) in documented, (
+            f"{method} {template} answered {response.status_code}, which the document does not list: {body}"
+        )
+        content = documented[str(response.status_code)]["content"]
+        assert response.mimetype in content, f"{response.mimetype} not documented for {method} {template}"
+        self.schema_validator(content[response.mimetype]["schema"]).validate(body)
+        return response
+
+    def template(self, method: str, path: str) -> str | None:
+        adapter = self.app.url_map.bind("localhost")
+        try:
+            endpoint, _ = adapter.match(path, method=method)
+        except (NotFound, MethodNotAllowed):
+            return None
+        rule = next(r for r in self.app.url_map.iter_rules() if r.endpoint == endpoint)
+        return rule.rule.replace("<", "{").replace(">", "}")
+
+
+@pytest.fixture
+def client(app: Flask, openapi_document: dict[str, Any]) -> ContractClient:
+    return ContractClient(app, openapi_document)
