@@ -10,7 +10,7 @@ from __future__ import annotations
 import difflib
 import math
 import tomllib
-from collections.abc import Iterable, Mapping
+from collections.abc import Callable, Iterable, Mapping
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
@@ -21,7 +21,7 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.schema import FluidEntrySchema
 from service.physics import water
-from service.physics.correlations import ExtendedAntoine, VaporPressureEquation, Wagner
+from service.physics.correlations import Dippr105, ExtendedAntoine, VaporPressureEquation, Wagner
 from service.physics.units import resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
@@ -32,36 +32,87 @@ class CatalogError(ValueError):
 
 
 @dataclass(frozen=True)
-class Fluid:
-    """A fluid with its fixed points [K, Pa] and its vapor-pressure equation."""
+class LiquidDensity:
+    """A saturated-liquid density correlation [kg/m3] with its stated range [K] and citation."""
 
-    id: str
-    name: str
-    formula: str
-    cas: str
-    aliases: tuple[str, ...]
-    molar_mass: float
-    critical_temperature: float
-    critical_pressure: float
-    triple_temperature: float
-    triple_pressure: float
-    normal_boiling_point: float | None
-    constants_source: str
-    equation: VaporPressureEquation = field(repr=False)
+    density: Callable[[ArrayLike], NDArray[np.float64]] = field(repr=False)
     t_min: float
     t_max: float
     method: str
     source: str
 
+
+def density_from_entry(table: Mapping[str, Any], molar_mass: float) -> LiquidDensity:
+    """Build the density correlation of a validated ``liquid_density`` table."""
+    if table["form"] == "iapws-1992":
+        density = water.saturated_liquid_density
+    else:
+        # The catalog prints A in kmol/m3 as Perry's does; the physics takes mol/m3.
+        equation = Dippr105(a=table["A"] * 1e3, b=table["B"], c=table["C"], d=table["D"])
+
+        def density(temperature: ArrayLike) -> NDArray[np.float64]:
+            return equation.molar_density(temperature) * molar_mass
+
+    return LiquidDensity(density, table["t_min"], table["t_max"], table["method"], table["source"])
+
+
+@dataclass(frozen=True)
+class Fluid:
+    """A fluid's vapor-pressure equation with its stated range [K], fixed points [K, Pa] and identity.
+
+    A fluid that a caller defines in a request knows only its equation and range: its fixed
+    points default to limits that never refuse (0 and infinity) and its identity to blanks.
+    """
+
+    id: str
+    name: str
+    equation: VaporPressureEquation = field(repr=False)
+    t_min: float
+    t_max: float
+    method: str
+    source: str
+    critical_temperature: float = math.inf
+    critical_pressure: float = math.inf
+    triple_temperature: float = 0.0
+    triple_pressure: float = 0.0
+    formula: str = ""
+    cas: str = ""
+    aliases: tuple[str, ...] = ()
+    molar_mass: float | None = None
+    normal_boiling_point: float | None = None
+    constants_source: str = ""
+    lower_limit_note: str | None = None
+    """Why the fluid does not boil below its triple point, where that is not sublimation."""
+    notes: tuple[str, ...] = ()
+    """Cautions that go into the warnings of every answer from this fluid."""
+    liquid_density: LiquidDensity | None = None
+
+    @property
+    def temperature_limits(self) -> tuple[float, float]:
+        """Where the equation may answer at all [K], extrapolation included.
+
+        From the triple point (or the equation's lower pole) to the critical temperature (or the
+        reducing temperature a Wagner equation was fitted with, if lower), and never beyond half
+        or twice the stated range's ends: that bounds a caller's fluid with no known fixed points.
+        """
+        low, high = self.equation.domain
+        return max(self.triple_temperature, low, 0.5 * self.t_min), min(self.critical_temperature, high, 2 * self.t_max)
+
+    @property
+    def stated_range(self) -> tuple[float, float]:
+        """The equation's stated temperature range [K], within :attr:`temperature_limits`."""
+        low, high = self.temperature_limits
+        return max(self.t_min, low), min(self.t_max, high)
+
     @property
     def p_min(self) -> float:
-        """Pressure at the lower end of the equation's stated range [Pa]."""
-        return float(self.equation.pressure(self.t_min))
+        """Saturation pressure at the lower end of the stated range [Pa]."""
+        return float(self.equation.pressure(self.stated_range[0]))
 
     @property
     def p_max(self) -> float:
-        """Pressure at the upper end of the equation's stated range [Pa]."""
-        return float(self.equation.pressure(self.t_max))
+        """Saturation pressure at the upper end of the stated range [Pa]."""
+        return float(self.equation.pressure(self.stated_range[1]))
 
     def saturation_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Vapor pressure [Pa] at ``temperature`` [K]."""
@@ -72,8 +123,8 @@ class Fluid:
         return self.equation.slope(temperature)
 
     def saturation_temperature(self, pressure: ArrayLike) -> NDArray[np.float64]:
-        """Boiling point [K] at absolute ``pressure`` [Pa], between triple and critical point."""
-        return self.equation.temperature(pressure, self.triple_temperature, self.critical_temperature)
+        """Boiling point [K] at absolute ``pressure`` [Pa], searched within :attr:`temperature_limits`."""
+        return self.equation.temperature(pressure, *self.temperature_limits)
 
 
 def equation_from_entry(
@@ -119,6 +170,11 @@ def fluid_from_entry(entry: Mapping[str, Any]) -> Fluid:
         triple_pressure=entry["triple_pressure"],
         normal_boiling_point=entry["normal_boiling_point"],
         constants_source=entry["constants_source"],
+        lower_limit_note=entry["lower_limit_note"],
+        notes=tuple(entry["notes"]),
+        liquid_density=None
+        if entry["liquid_density"] is None
+        else density_from_entry(entry["liquid_density"], entry["molar_mass"]),
         equation=equation_from_entry(vp, entry["critical_temperature"], entry["critical_pressure"]),
         t_min=vp["t_min"],
         t_max=vp["t_max"],

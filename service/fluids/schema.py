@@ -78,6 +78,29 @@ class VaporPressureSchema(Schema):
                 raise ValidationError(f"temperature_unit must be one of {codes('temperature')}", "temperature_unit")
 
 
+class LiquidDensitySchema(Schema):
+    """A saturated-liquid density correlation: ``dippr105`` (A in kmol/m3, B, C in K, D) or water's own."""
+
+    form = fields.String(required=True, validate=validate.OneOf(("dippr105", "iapws-1992")))
+    method = fields.String(required=True, validate=validate.Length(min=3))
+    source = fields.String(required=True, validate=validate.Length(min=10))
+    t_min = fields.Float(required=True, validate=_positive)
+    t_max = fields.Float(required=True, validate=_positive)
+    A = fields.Float(validate=_positive)
+    B = fields.Float(validate=_positive)
+    C = fields.Float(validate=_positive)
+    D = fields.Float()
+
+    @validates_schema
+    def _coefficients(self, data: dict[str, Any], **_: Any) -> None:
+        if data["form"] == "dippr105" and not {"A", "B", "C", "D"} <= set(data):
+            raise ValidationError("form 'dippr105' needs A, B, C, D", "form")
+        if data["t_min"] >= data["t_max"]:
+            raise ValidationError("t_min must be below t_max", "t_max")
+        if data["form"] == "dippr105" and data["t_max"] > data["C"]:
+            raise ValidationError("t_max is above C, where the DIPPR 105 equation ends", "t_max")
+
+
 class FluidEntrySchema(Schema):
     """One fluid of the catalog."""
 
@@ -96,7 +119,10 @@ class FluidEntrySchema(Schema):
     triple_pressure = fields.Float(required=True, validate=_positive)
     normal_boiling_point = fields.Float(load_default=None, validate=_positive)
     constants_source = fields.String(required=True, validate=validate.Length(min=10))
+    lower_limit_note = fields.String(load_default=None, validate=validate.Length(min=10))
+    notes = fields.List(fields.String(validate=validate.Length(min=10)), load_default=list)
     vapor_pressure = fields.Nested(VaporPressureSchema, required=True)
+    liquid_density = fields.Nested(LiquidDensitySchema, load_default=None)
 
     @validates("cas")
     def _cas(self, value: str, **_: Any) -> None:

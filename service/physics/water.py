@@ -1,8 +1,8 @@
 """Saturation of ordinary water, from the triple point to the critical point.
 
 Source: IAPWS, *Revised Supplementary Release on Saturation Properties of Ordinary Water
-Substance*, St. Petersburg, 1992, eq. (1); W. Wagner and A. Pruss, J. Phys. Chem. Ref.
-Data 22, 783 (1993). The inverse starts from the backward equation of IAPWS-IF97 region 4
+Substance*, St. Petersburg, 1992, eqs. (1) and (2); W. Wagner and A. Pruss, J. Phys. Chem.
+Ref. Data 22, 783 (1993). The inverse starts from the backward equation of IAPWS-IF97 region 4
 (IAPWS, *Revised Release on the IAPWS Industrial Formulation 1997*, 2007, eq. (31)), which
 agrees with eq. (1) to about 0.01 K, and polishes it with the safeguarded Newton iteration
 of :mod:`service.physics.correlations`.
@@ -28,6 +28,10 @@ CRITICAL_PRESSURE = 22.064e6
 """pc [Pa], IAPWS 1992."""
 TRIPLE_TEMPERATURE = 273.16
 """Triple-point temperature [K], ITS-90 defining point."""
+CRITICAL_DENSITY = 322.0
+"""rho_c [kg/m3], IAPWS 1992."""
+_LIQUID_B = (1.99274064, 1.09965342, -0.510839303, -1.75493479, -45.5170352, -6.74694450e5)
+_LIQUID_EXPONENTS = (1 / 3, 2 / 3, 5 / 3, 16 / 3, 43 / 3, 110 / 3)
 
 _IF97_N = (
     0.11670521452767e4,
@@ -104,3 +108,18 @@ def saturation_temperature_slope(pressure: ArrayLike) -> NDArray[np.float64]:
     0.2765
     """
     return 1.0 / saturation_pressure_slope(saturation_temperature(pressure))
+
+
+def saturated_liquid_density(temperature: ArrayLike) -> NDArray[np.float64]:
+    """Density of saturated liquid water rho' [kg/m3] at ``temperature`` [K], eq. (2) of the release.
+
+    rho'/rho_c = 1 + sum(b_i tau**e_i), tau = 1 - T/Tc, exponents 1/3, 2/3, 5/3, 16/3, 43/3, 110/3.
+
+    >>> round(float(saturated_liquid_density(373.1243)), 2)  # the release's check value: 958.365 kg/m3
+    958.37
+    """
+    tau = 1.0 - np.asarray(temperature, dtype=float) / CRITICAL_TEMPERATURE
+    total = np.ones_like(tau)
+    for b, e in zip(_LIQUID_B, _LIQUID_EXPONENTS, strict=True):
+        total += b * tau**e
+    return CRITICAL_DENSITY * total

@@ -2,8 +2,10 @@
 
 from pathlib import Path
 
+import numpy as np
 import pytest
 
+from service import create_app
 from service.fluids.catalog import DATA_DIR, CatalogError, equation_from_entry, load_catalog, load_file
 from service.fluids.schema import cas_check_digit_ok
 from service.physics import water
@@ -48,13 +50,21 @@ def test_builtin_water_entry_uses_the_iapws_equation() -> None:
     assert fluid.p_max == pytest.approx(22.064e6)
 
 
-def test_every_builtin_file_loads() -> None:
+def test_every_builtin_entry_is_well_formed() -> None:
     catalog = load_catalog()
     assert "water" in catalog.fluids
     for fluid in catalog.fluids.values():
-        assert cas_check_digit_ok(fluid.cas)
-        assert fluid.triple_temperature <= fluid.t_min < fluid.t_max <= fluid.critical_temperature
-        assert len(fluid.source) > 10
+        assert cas_check_digit_ok(fluid.cas), fluid.id
+        low, high = fluid.stated_range
+        assert fluid.triple_temperature <= low < high <= fluid.critical_temperature, fluid.id
+        # A stated range far below the triple point means the triple point is not the real one.
+        assert fluid.t_min > fluid.triple_temperature - 5.0, fluid.id
+        # The pressure rises with temperature everywhere the equation may answer.
+        t = np.linspace(*fluid.temperature_limits, 500)
+        slope = fluid.saturation_pressure_slope(t[:-1])
+        assert np.all(np.isfinite(slope)) and np.all(slope > 0), fluid.id
+        assert fluid.p_min < fluid.p_max
+        assert len(fluid.source) > 10 and len(fluid.constants_source) > 10
 
 
 @pytest.mark.parametrize("name", ["water", "WATER", "h2o", "7732-18-5", "Steam", "  ordinary   water "])
@@ -133,3 +143,25 @@ def test_equation_from_entry_dippr101() -> None:
         {"form": "dippr101", "A": 73.649, "B": -7258.2, "C": -7.3037, "D": 4.1653e-6, "E": 2.0}, 647.096, 22.064e6
     )
     assert eq.pressure(373.15) == pytest.approx(101_325.0, rel=3e-3)
+
+
+def test_operator_files_from_the_environment_join_the_catalog(tmp_path: Path, monkeypatch) -> None:
+    path = tmp_path / "site.toml"
+    entry = GOOD_ENTRY.replace("7732-18-5", "123-91-1").replace('id = "test-water"', 'id = "site-solvent"')
+    path.write_text(entry)
+    monkeypatch.setenv("BOILING_EXTRA_CATALOGS", str(path))
+    app = create_app()
+    body = app.test_client().get("/v1/boiling-point?fluid=site-solvent&pressure=101.325").get_json()
+    assert body["fluid"] == "site-solvent"
+    assert body["boiling_point"]["value"] == pytest.approx(100.0, abs=0.01)
+
+
+def test_a_bad_operator_file_stops_start_up(tmp_path: Path, monkeypatch) -> None:
+    path = tmp_path / "broken-site.toml"
+    path.write_text(GOOD_ENTRY.replace("t_min = 274.15", "t_min = -4"))
+    monkeypatch.setenv("BOILING_EXTRA_CATALOGS", str(path))
+    with pytest.raises(CatalogError) as error:
+        create_app()
+    assert str(path) in str(error.value)
+    assert "entry 1 (test-water)" in str(error.value)
+    assert "vapor_pressure.t_min" in str(error.value)

@@ -1,0 +1,1 @@
+"""Maintainer tools for the fluid catalog (not part of the service)."""
