@@ -19,6 +19,7 @@ def create_app(config: Mapping[str, Any] | None = None) -> Flask:
     app.config.from_mapping(settings())
     app.config.from_mapping(config or {})
     app.json = OrjsonProvider(app)
-    app.extensions["catalog"] = load_catalog(app.config.get("CATALOG_FILES"))
+    # A bad operator file raises CatalogError here, naming file, entry and field: start-up stops.
+    app.extensions["catalog"] = load_catalog(extra_files=app.config["EXTRA_CATALOGS"])
     register_api(app)
     return app

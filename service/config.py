@@ -5,6 +5,7 @@ from __future__ import annotations
 import os
 from collections.abc import Mapping
 from importlib import metadata
+from pathlib import Path
 from typing import Any
 
 VERSION = metadata.version("boiling-point-service")
@@ -21,7 +22,10 @@ _ENVIRONMENT = {
 
 
 def settings(environ: Mapping[str, str] = os.environ) -> dict[str, Any]:
-    """The defaults, overridden by any ``BOILING_*`` variables set in ``environ``."""
+    """The defaults, overridden by any ``BOILING_*`` variables set in ``environ``.
+
+    ``BOILING_EXTRA_CATALOGS`` names operator catalog files, separated by ``os.pathsep``.
+    """
     out = dict(DEFAULTS)
     for key, variable in _ENVIRONMENT.items():
         if variable in environ:
@@ -29,4 +33,6 @@ def settings(environ: Mapping[str, str] = os.environ) -> dict[str, Any]:
                 out[key] = int(environ[variable])
             except ValueError:
                 raise SystemExit(f"{variable} must be a whole number, not {environ[variable]!r}") from None
+    extra = environ.get("BOILING_EXTRA_CATALOGS", "")
+    out["EXTRA_CATALOGS"] = [Path(p) for p in extra.split(os.pathsep) if p.strip()]
     return out

@@ -58,6 +58,8 @@ class ContractClient:
         )
         content = documented[str(response.status_code)]["content"]
         assert response.mimetype in content, f"{response.mimetype} not documented for {method} {template}"
+        if response.mimetype.startswith("text/"):
+            body = response.get_data(as_text=True)
         self.schema_validator(content[response.mimetype]["schema"]).validate(body)
         return response
 

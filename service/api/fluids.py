@@ -9,7 +9,7 @@ from marshmallow import Schema, fields
 
 from service.api.operations import query_args
 from service.api.quantities import UnitField, quantity
-from service.api.rules import catalog, resolve_fluid
+from service.api.rules import catalog, resolve_catalog_fluid
 from service.fluids.catalog import Fluid
 from service.physics.units import DEFAULT_UNITS, Unit, resolve_unit
 
@@ -49,6 +49,8 @@ def summary(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
             "pressure_min": quantity(fluid.p_min, p_unit),
             "pressure_max": quantity(fluid.p_max, p_unit),
         },
+        "method": fluid.method,
+        "source": fluid.source,
     }
 
 
@@ -64,8 +66,6 @@ def detail(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
             "temperature": quantity(fluid.triple_temperature, t_unit),
             "pressure": quantity(fluid.triple_pressure, p_unit),
         },
-        "method": fluid.method,
-        "source": fluid.source,
         "constants_source": fluid.constants_source,
     }
 
@@ -81,4 +81,4 @@ def list_fluids() -> Response:
 @blueprint.get("/v1/fluids/<name>")
 def fluid_detail(name: str) -> Response:
     loaded = FluidQuery().load(query_args())
-    return current_app.json.response(detail(resolve_fluid(name), *_units(loaded)))
+    return current_app.json.response(detail(resolve_catalog_fluid(name), *_units(loaded)))

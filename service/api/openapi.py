@@ -16,7 +16,9 @@ from apispec.ext.marshmallow import MarshmallowPlugin
 from flask import current_app
 
 from service.api import schemas
+from service.api.fluid_field import EquationFluid, PointFluid
 from service.api.fluids import FluidQuery, FluidSearchQuery
+from service.api.formats import as_csv, as_text
 from service.api.operations import OPERATIONS, Operation
 from service.api.problems import PROBLEM_TYPE, TITLES, problem_type
 from service.api.quantities import QuantityField
@@ -113,9 +115,10 @@ def _array_example(operation: Operation) -> dict[str, Any]:
 
 
 def _computing_paths(spec: APISpec, operation: Operation) -> None:
-    get_answer = operation.compute(operation.parse(operation.example, operation.query_schema))
+    get_answer = _rounded(operation.compute(operation.parse(operation.example, operation.query_schema)))
     array_body = _array_example(operation)
-    post_answer = operation.compute(operation.parse(array_body, operation.body_schema))
+    post_answer = _rounded(operation.compute(operation.parse(array_body, operation.body_schema)))
+    text = {"type": "string"}
     tag = operation.path.split("/")[2]
     common = {"tags": [tag], "summary": operation.summary, "description": operation.description}
     spec.path(
@@ -129,7 +132,8 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                     "200": {
                         "description": "The answer.",
                         "content": {
-                            "application/json": {"schema": operation.response, "example": _rounded(get_answer)}
+                            "application/json": {"schema": operation.response, "example": get_answer},
+                            "text/plain": {"schema": text, "example": as_text(get_answer)},
                         },
                     },
                     **_problem_responses(operation.errors),
@@ -147,7 +151,8 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                     "200": {
                         "description": "The answer; arrays where the request sent arrays.",
                         "content": {
-                            "application/json": {"schema": operation.response, "example": _rounded(post_answer)}
+                            "application/json": {"schema": operation.response, "example": post_answer},
+                            "text/csv": {"schema": text, "example": as_csv(post_answer)},
                         },
                     },
                     **_problem_responses((*operation.errors, 413, 415)),
@@ -173,6 +178,8 @@ def build_document() -> dict[str, Any]:
     )
     spec.plugins[0].converter.add_attribute_function(_quantity_property)  # type: ignore[attr-defined]
     spec.components.schema("Problem", schema=schemas.Problem)
+    spec.components.schema("EquationFluid", schema=EquationFluid)
+    spec.components.schema("PointFluid", schema=PointFluid)
     for operation in OPERATIONS:
         _computing_paths(spec, operation)
     spec.path(

@@ -14,10 +14,11 @@ from typing import Any
 
 import numpy as np
 from flask import Blueprint, Response, current_app, request
-from marshmallow import Schema, fields
+from marshmallow import Schema, fields, validate
 from numpy.typing import NDArray
 from werkzeug.exceptions import BadRequest
 
+from service.api.formats import chosen_format, respond
 from service.api.problems import Problem, invalid
 from service.api.quantities import Quantity, QuantityField, UnitField
 from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
@@ -69,6 +70,8 @@ class Operation:
     response: type[Schema]
     compute: Callable[[Inputs], dict[str, Any]]
     example: dict[str, Any]
+    body_options: Mapping[str, fields.Field] = field(default_factory=dict)
+    """Options that take another field in a POST body than in the query string."""
     errors: tuple[int, ...] = (400, 404, 422)
     """Problem statuses of the GET; the POST adds 413 and 415."""
     query_schema: type[Schema] = field(init=False)
@@ -96,9 +99,15 @@ class Operation:
             )
             for n, s in self.inputs.items()
         }
-        self.query_schema = Schema.from_dict(name=f"{self.name}Query", fields={**query, **units, **self.options})
-        self.body_schema = Schema.from_dict(name=f"{self.name}Body", fields={**body, **units, **self.options})
-        self.units_schema = Schema.from_dict(name=f"{self.name}Units", fields=units)
+        self.query_schema = Schema.from_dict(
+            name=f"{self.name}Query", fields={**query, **units, "format": _format_field("json", "text"), **self.options}
+        )
+        self.body_schema = Schema.from_dict(
+            name=f"{self.name}Body", fields={**body, **units, **self.options, **self.body_options}
+        )
+        self.units_schema = Schema.from_dict(
+            name=f"{self.name}Units", fields={**units, "format": _format_field("json", "csv")}
+        )
 
     def parse(self, data: Mapping[str, Any], schema: type[Schema]) -> Inputs:
         """Load ``data`` with ``schema`` and convert its quantities to broadcast SI arrays."""
@@ -123,9 +132,12 @@ class Operation:
     def view(self) -> Response:
         if request.method == "GET":
             inputs = self.parse(query_args(), self.query_schema)
+            fmt = chosen_format(inputs.options.pop("format", None), ("text",))
         else:
-            inputs = self.parse(_json_body(set(self.dimensions)), self.body_schema)
-        return current_app.json.response(self.compute(inputs))
+            query = self.units_schema().load(query_args())
+            inputs = self.parse(_json_body(query), self.body_schema)
+            fmt = chosen_format(query.get("format"), ("csv",))
+        return respond(self.compute(inputs), fmt)
 
     def register(self, blueprint: Blueprint) -> None:
         """Answer GET and POST on ``blueprint`` and list the operation in the OpenAPI document."""
@@ -156,7 +168,8 @@ def query_args() -> dict[str, str]:
     return args.to_dict()
 
 
-def _json_body(dimensions: set[str]) -> dict[str, Any]:
+def _json_body(query: dict[str, Any]) -> dict[str, Any]:
+    """The JSON object of a POST, with the units its query string sets."""
     if not request.is_json:
         raise Problem(415, "POST bodies are JSON: send Content-Type: application/json.")
     try:
@@ -167,10 +180,18 @@ def _json_body(dimensions: set[str]) -> dict[str, Any]:
         ) from None
     if not isinstance(body, dict):
         raise invalid("body", "must be a JSON object")
-    for key, value in query_args().items():
-        if key.removesuffix("_unit") not in dimensions or not key.endswith("_unit"):
-            raise invalid(key, "a POST takes only unit parameters in its query string")
-        if key in body and body[key] != value:
-            raise invalid(key, "given in the query string and the body with different values")
-        body[key] = value
+    for key in query:
+        if key.endswith("_unit"):
+            if key in body and body[key] != request.args[key]:
+                raise invalid(key, "given in the query string and the body with different values")
+            body[key] = request.args[key]
     return body
+
+
+def _format_field(*formats: str) -> fields.String:
+    return fields.String(
+        validate=validate.OneOf(formats),
+        metadata={
+            "description": f"Answer as {' or '.join(formats)}; without it the Accept header decides (JSON by default)."
+        },
+    )

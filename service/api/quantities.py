@@ -87,6 +87,11 @@ def ratio(value_si: NDArray | float, top: Unit, bottom: Unit) -> dict[str, Any]:
     return {"value": _plain(np.asarray(value_si) * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
 
 
+def difference(value_kelvin: NDArray | float, unit: Unit) -> dict[str, Any]:
+    """A temperature difference [K] as ``{"value", "unit"}``: in K for K and degC, degR for degF and degR."""
+    return {"value": _plain(np.asarray(value_kelvin) / unit.scale), "unit": "K" if unit.scale == 1.0 else "degR"}
+
+
 def _plain(array: NDArray) -> float | list[float]:
     return array.tolist() if array.ndim else float(array)
 

@@ -7,18 +7,23 @@ names the limit in the request's own unit, and appends cautions to ``warnings``.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 from flask import current_app
 from numpy.typing import NDArray
 
-from service.api.operations import Inputs
+from service.api.operations import Input, Inputs
 from service.api.problems import Problem
 from service.api.quantities import format_value
-from service.fluids.catalog import Catalog, Fluid
+from service.fluids.catalog import Catalog, Fluid, LiquidDensity
 from service.physics import atmosphere
 from service.physics.units import Unit
 
+GRAVITY = 9.80665
+"""Standard acceleration of gravity g [m/s2] (CGPM 1901), for heads of liquid."""
+WEATHER_SPREAD = 0.03
+"""Typical departure of real barometric pressure from the standard atmosphere (common practice, no source)."""
 NEAR_CRITICAL = 0.98
 """Warn above this fraction of the critical temperature."""
 SEA_LEVEL_PRESSURE_RANGE = (85e3, 110e3)
@@ -36,7 +41,7 @@ def catalog() -> Catalog:
     return current_app.extensions["catalog"]
 
 
-def resolve_fluid(name: str) -> Fluid:
+def resolve_catalog_fluid(name: str) -> Fluid:
     """The catalog fluid named ``name``; 404 listing the closest names otherwise."""
     fluid = catalog().get(name)
     if fluid is None:
@@ -88,10 +93,11 @@ def refuse_outside(
 
 @dataclass(frozen=True)
 class LocalPressure:
-    """The absolute pressure a request describes [Pa], and whether the standard atmosphere gave it."""
+    """The absolute pressure a request describes [Pa], and the local atmosphere when it took part."""
 
     value: NDArray[np.float64]
-    standard_atmosphere: bool
+    atmosphere: NDArray[np.float64] | None = None
+    standard_atmosphere: bool = False
 
 
 def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
@@ -175,7 +181,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
             "zero ({limit}): an absolute pressure is positive",
             "",
         )
-        return LocalPressure(pressure, False)
+        return LocalPressure(pressure)
     atmosphere_pressure = local_atmosphere(inputs)
     if atmosphere_pressure is None:
         field = "gauge_pressure" if gauge is not None else "pressure"
@@ -187,7 +193,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
         )
     standard = inputs.get("barometric_pressure") is None
     if gauge is None:
-        return LocalPressure(atmosphere_pressure, standard)
+        return LocalPressure(atmosphere_pressure, atmosphere_pressure, standard)
     refuse_outside(
         "gauge_pressure",
         gauge,
@@ -197,8 +203,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
         "{limit}, the deepest vacuum the local atmosphere allows",
         "",
     )
-    absolute = atmosphere_pressure + gauge
-    return LocalPressure(absolute, standard)
+    return LocalPressure(atmosphere_pressure + gauge, atmosphere_pressure, standard)
 
 
 def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapolate: bool, warnings: list[str]) -> None:
@@ -209,10 +214,11 @@ def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapol
         unit,
         fluid.triple_pressure,
         fluid.critical_pressure,
-        f"the triple-point pressure of {fluid.name}, {{limit}}: below it the solid sublimes instead of boiling",
+        f"the triple-point pressure of {fluid.name}, {{limit}}: {_below_triple(fluid)}",
         f"the critical pressure of {fluid.name}, {{limit}}: above it liquid and vapor no longer differ",
     )
-    _check_stated_range("pressure", pressure, unit, fluid.p_min, fluid.p_max, fluid, extrapolate, warnings)
+    reach = tuple(float(p) for p in fluid.saturation_pressure(np.array(fluid.temperature_limits)))
+    _check_stated_range("pressure", pressure, unit, (fluid.p_min, fluid.p_max), reach, fluid, extrapolate, warnings)
 
 
 def check_liquid_temperature(
@@ -225,22 +231,32 @@ def check_liquid_temperature(
         unit,
         fluid.triple_temperature,
         fluid.critical_temperature,
-        f"the triple-point temperature of {fluid.name}, {{limit}}: below it the liquid freezes",
+        f"the triple-point temperature of {fluid.name}, {{limit}}: {_below_triple(fluid, liquid=True)}",
         f"the critical temperature of {fluid.name}, {{limit}}: above it there is no liquid",
     )
-    _check_stated_range(field, temperature, unit, fluid.t_min, fluid.t_max, fluid, extrapolate, warnings)
+    _check_stated_range(
+        field, temperature, unit, fluid.stated_range, fluid.temperature_limits, fluid, extrapolate, warnings
+    )
+
+
+def _below_triple(fluid: Fluid, liquid: bool = False) -> str:
+    if fluid.lower_limit_note:
+        return fluid.lower_limit_note
+    return "below it the liquid freezes" if liquid else "below it the solid sublimes instead of boiling"
 
 
 def _check_stated_range(
     field: str,
     values: NDArray,
     unit: Unit,
-    low: float,
-    high: float,
+    stated: tuple[float, float],
+    reach: tuple[float, float],
     fluid: Fluid,
     extrapolate: bool,
     warnings: list[str],
 ) -> None:
+    """Refuse values outside the equation's stated range, or with ``extrapolate`` outside its reach, and warn."""
+    low, high = stated
     outside = (values < low) | (values > high)
     if not outside.any():
         return
@@ -248,6 +264,8 @@ def _check_stated_range(
     if not extrapolate:
         beyond = f"{where}, {{limit}} (send extrapolate=true to extrapolate)"
         refuse_outside(field, values, unit, low, high, beyond, beyond)
+    limit = f"{{limit}}, as far as the {fluid.method} for {fluid.name} can be extrapolated"
+    refuse_outside(field, values, unit, reach[0], reach[1], limit, limit)
     warnings.append(
         f"{int(outside.sum())} value(s) of {field} lie outside {where}, "
         f"{format_value(low, unit)} to {format_value(high, unit)}: extrapolated, accuracy unknown."
@@ -263,3 +281,57 @@ def note_near_critical(fluid: Fluid, temperature: NDArray, unit: Unit, warnings:
             f"({format_value(fluid.critical_temperature, unit)}): properties change steeply there and small "
             "errors in pressure or temperature grow large."
         )
+
+
+SITE_INPUTS = {
+    "barometric_pressure": Input(
+        "pressure", "Absolute air pressure measured on site (a barometer reading, not reduced to sea level)."
+    ),
+    "elevation": Input(
+        "length",
+        "Geometric elevation of the site above mean sea level; the U.S. Standard "
+        "Atmosphere 1976 gives its air pressure.",
+    ),
+    "sea_level_pressure": Input(
+        "pressure", "A weather station's sea-level pressure (QNH); scales the standard atmosphere at `elevation`."
+    ),
+}
+PRESSURE_INPUTS = {
+    "pressure": Input("pressure", "Absolute pressure on the liquid."),
+    "gauge_pressure": Input(
+        "pressure", "Pressure relative to the local atmosphere, as a gauge reads it; negative for vacuum."
+    ),
+    **SITE_INPUTS,
+}
+"""The ways a request may give the pressure on a liquid; see :func:`local_pressure`."""
+
+
+def provenance(
+    fluid: Fluid | None,
+    atmosphere_note: str | None,
+    warnings: list[str],
+    density: LiquidDensity | None = None,
+) -> dict[str, Any]:
+    """``method``, ``source`` and ``warnings`` of an answer from the equations it used."""
+    parts = []
+    if fluid:
+        parts.append((fluid.method, fluid.source))
+        warnings.extend(fluid.notes)
+    if density:
+        parts.append((density.method, density.source))
+    if atmosphere_note:
+        parts.append((atmosphere.MODEL, atmosphere.SOURCE))
+        warnings.append(atmosphere_note)
+    return {"method": "; ".join(m for m, _ in parts), "source": "; ".join(s for _, s in parts), "warnings": warnings}
+
+
+def require_liquid_density(fluid: Fluid) -> LiquidDensity:
+    """The fluid's saturated-liquid density correlation; 422 when the catalog has none."""
+    if fluid.liquid_density is None:
+        raise Problem(
+            422,
+            f"The catalog has no saturated-liquid density correlation for {fluid.name}; "
+            "heads of this liquid cannot be computed.",
+            {"fluid": ["no liquid density correlation"]},
+        )
+    return fluid.liquid_density

@@ -4,86 +4,93 @@ from __future__ import annotations
 
 from typing import Any
 
+import numpy as np
 from flask import Blueprint
-from marshmallow import fields
 
 from service.api import schemas
+from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.operations import Input, Inputs, Operation
 from service.api.problems import Problem
-from service.api.quantities import quantity, ratio
+from service.api.quantities import difference, quantity, ratio
 from service.api.rules import (
+    GRAVITY,
+    PRESSURE_INPUTS,
+    SITE_INPUTS,
     STANDARD_ATMOSPHERE_WARNING,
+    WEATHER_SPREAD,
     check_boiling_pressure,
     check_liquid_temperature,
     local_pressure,
     note_near_critical,
+    provenance,
     refuse_outside,
-    resolve_fluid,
+    require_liquid_density,
     sea_level_pressure,
 )
-from service.fluids.catalog import Fluid
 from service.physics import atmosphere
 
 blueprint = Blueprint("saturation", __name__)
 
-FLUID = fields.String(
-    load_default="water",
-    metadata={
-        "description": "Catalog id, CAS registry number or alias of the fluid (see /v1/fluids).",
-        "example": "water",
-    },
-)
-EXTRAPOLATE = fields.Boolean(
-    load_default=False,
-    metadata={
-        "description": "Answer outside the equation's stated range (but between triple and critical point) "
-        "with a warning, instead of refusing."
-    },
+ELEVATION_WARNING = (
+    "The elevation is where the U.S. Standard Atmosphere 1976 has this pressure; on a real "
+    "day the weather moves it by up to a few hundred metres."
 )
 
-SITE_INPUTS = {
-    "barometric_pressure": Input(
-        "pressure", "Absolute air pressure measured on site (a barometer reading, not reduced to sea level)."
+
+INSTRUMENT_INPUTS = {
+    "pressure_uncertainty": Input(
+        "pressure", "Standard uncertainty of the pressure reading; gives boiling_point_uncertainty."
     ),
-    "elevation": Input(
+    "depth": Input(
         "length",
-        "Geometric elevation of the site above mean sea level; the U.S. Standard "
-        "Atmosphere 1976 gives its air pressure.",
-    ),
-    "sea_level_pressure": Input(
-        "pressure", "A weather station's sea-level pressure (QNH); scales the standard atmosphere at `elevation`."
+        "How far below the liquid surface the sensor sits: the liquid there boils at the surface pressure plus "
+        "its own hydrostatic head.",
     ),
 }
-
-
-def provenance(fluid: Fluid, standard_atmosphere: bool, warnings: list[str]) -> dict[str, Any]:
-    """``method``, ``source`` and ``warnings`` of an answer from ``fluid``'s equation."""
-    method, source = fluid.method, fluid.source
-    if standard_atmosphere:
-        warnings.append(STANDARD_ATMOSPHERE_WARNING)
-        method, source = f"{method}; {atmosphere.MODEL}", f"{source}; {atmosphere.SOURCE}"
-    return {"method": method, "source": source, "warnings": warnings}
+_DEPTH_ITERATIONS = 4  # the head changes the boiling point, which changes the density: converges in 3
 
 
 def boiling_point(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"])
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     warnings: list[str] = []
     local = local_pressure(inputs)
     check_boiling_pressure(fluid, local.value, p_unit, inputs.options["extrapolate"], warnings)
-    temperature = fluid.saturation_temperature(local.value)
+    answer: dict[str, Any] = {}
+    pressure, depth, density = local.value, inputs.get("depth"), None
+    if depth is not None:
+        refuse_outside("depth", depth, inputs.units["length"], 0.0, None, "the liquid surface, {limit}", "")
+        density = require_liquid_density(fluid)
+        for _ in range(_DEPTH_ITERATIONS):
+            pressure = local.value + density.density(fluid.saturation_temperature(pressure)) * GRAVITY * depth
+        check_boiling_pressure(fluid, pressure, p_unit, inputs.options["extrapolate"], warnings)
+        answer["surface_pressure"] = quantity(local.value, p_unit)
+    temperature = fluid.saturation_temperature(pressure)
+    slope = 1.0 / fluid.saturation_pressure_slope(temperature)
     note_near_critical(fluid, temperature, t_unit, warnings)
+    answer["boiling_point"] = quantity(temperature, t_unit)
+    uncertainty = inputs.get("pressure_uncertainty")
+    if uncertainty is not None:
+        refuse_outside("pressure_uncertainty", uncertainty, p_unit, 0.0, None, "zero, {limit}", "")
+        answer["boiling_point_uncertainty"] = difference(slope * uncertainty, t_unit)
+    note = None
+    if local.standard_atmosphere:
+        spread = difference(float(np.max(slope * WEATHER_SPREAD * local.atmosphere)), t_unit)
+        note = (
+            f"{STANDARD_ATMOSPHERE_WARNING} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
+            f"boiling point by about {spread['value']:.2g} {spread['unit']}."
+        )
     return {
         "fluid": fluid.id,
-        "pressure": quantity(local.value, p_unit),
-        "boiling_point": quantity(temperature, t_unit),
-        "sensitivity": ratio(1.0 / fluid.saturation_pressure_slope(temperature), t_unit, p_unit),
-        **provenance(fluid, local.standard_atmosphere, warnings),
+        "pressure": quantity(pressure, p_unit),
+        **answer,
+        "sensitivity": ratio(slope, t_unit, p_unit),
+        **provenance(fluid, note, warnings, density),
     }
 
 
 def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"])
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     temperature = inputs.get("temperature")
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     warnings: list[str] = []
@@ -94,7 +101,7 @@ def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
         "temperature": quantity(temperature, t_unit),
         "vapor_pressure": quantity(fluid.saturation_pressure(temperature), p_unit),
         "sensitivity": ratio(fluid.saturation_pressure_slope(temperature), p_unit, t_unit),
-        **provenance(fluid, False, warnings),
+        **provenance(fluid, None, warnings),
     }
 
 
@@ -108,17 +115,12 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
             {"pressure": ["give pressure or boiling_point"], "boiling_point": ["give boiling_point or pressure"]},
         )
     warnings: list[str] = []
-    answer: dict[str, Any] = {"method": atmosphere.MODEL, "source": atmosphere.SOURCE}
+    fluid, answer = None, {}
     if boiling is not None:
-        fluid = resolve_fluid(inputs.options["fluid"])
+        fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
         check_liquid_temperature(fluid, boiling, t_unit, inputs.options["extrapolate"], warnings, "boiling_point")
         pressure = fluid.saturation_pressure(boiling)
-        answer = {
-            "fluid": fluid.id,
-            "boiling_point": quantity(boiling, t_unit),
-            "method": f"{fluid.method}; {atmosphere.MODEL}",
-            "source": f"{fluid.source}; {atmosphere.SOURCE}",
-        }
+        answer = {"fluid": fluid.id, "boiling_point": quantity(boiling, t_unit)}
     sea_level = sea_level_pressure(inputs)
     scale = sea_level / atmosphere.SEA_LEVEL_PRESSURE
     refuse_outside(
@@ -130,15 +132,11 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
         "{limit}, the pressure at the top of the standard atmosphere (86 km)",
         "{limit}, the pressure at the bottom of the standard atmosphere (-5 km)",
     )
-    warnings.append(
-        "The elevation is where the U.S. Standard Atmosphere 1976 has this pressure; on a real "
-        "day the weather moves it by up to a few hundred metres."
-    )
     return {
         "elevation": quantity(atmosphere.elevation_at_pressure(pressure, sea_level), inputs.units["length"]),
         "pressure": quantity(pressure, p_unit),
         **answer,
-        "warnings": warnings,
+        **provenance(fluid, ELEVATION_WARNING, warnings),
     }
 
 
@@ -151,16 +149,13 @@ for _operation in (
             "The saturation temperature of a fluid at the absolute pressure the request describes: "
             "`pressure` (absolute); or `elevation` or `barometric_pressure` alone (a vessel open to the "
             "atmosphere); or `gauge_pressure` plus `barometric_pressure` or `elevation` (a gauge reads relative "
-            "to the local atmosphere; negative is vacuum). `sensitivity` is dT/dp at that point."
+            "to the local atmosphere; negative is vacuum). `sensitivity` is dT/dp at that point. For an instrument "
+            "check, `pressure_uncertainty` gives `boiling_point_uncertainty` through the slope, and `depth` adds the "
+            "hydrostatic head of the boiling liquid above the sensor."
         ),
-        inputs={
-            "pressure": Input("pressure", "Absolute pressure on the liquid."),
-            "gauge_pressure": Input(
-                "pressure", "Pressure relative to the local atmosphere, as a gauge reads it; negative for vacuum."
-            ),
-            **SITE_INPUTS,
-        },
+        inputs={**PRESSURE_INPUTS, **INSTRUMENT_INPUTS},
         options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        body_options={"fluid": BODY_FLUID},
         dimensions=("pressure", "temperature", "length"),
         response=schemas.BoilingPointAnswer,
         compute=boiling_point,
@@ -173,6 +168,7 @@ for _operation in (
         description="The saturation pressure of a fluid at `temperature`, and its slope dp/dT.",
         inputs={"temperature": Input("temperature", "Liquid temperature.", required=True)},
         options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        body_options={"fluid": BODY_FLUID},
         dimensions=("pressure", "temperature"),
         response=schemas.VaporPressureAnswer,
         compute=vapor_pressure,
@@ -193,6 +189,7 @@ for _operation in (
             "sea_level_pressure": SITE_INPUTS["sea_level_pressure"],
         },
         options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        body_options={"fluid": BODY_FLUID},
         dimensions=("pressure", "temperature", "length"),
         response=schemas.ElevationAnswer,
         compute=elevation,

@@ -29,6 +29,10 @@ Pressure = _quantity_schema("Pressure", {"enum": codes("pressure")})
 Temperature = _quantity_schema("Temperature", {"enum": codes("temperature")})
 Length = _quantity_schema("Length", {"enum": codes("length")})
 Density = _quantity_schema("Density", {"enum": ["kg/m3"]})
+TemperatureDifference = _quantity_schema(
+    "TemperatureDifference",
+    {"enum": ["K", "degR"], "description": "K for kelvin and Celsius requests, degR for Fahrenheit and Rankine."},
+)
 Slope = _quantity_schema(
     "Slope",
     {
@@ -37,6 +41,9 @@ Slope = _quantity_schema(
         "temperatures in a slope count as differences (1 degC = 1 K, 1 degF = 1 degR).",
     },
 )
+
+
+_FLUID = "Catalog id of the fluid, or the name of a fluid the request defined."
 
 
 class Provenance(Schema):
@@ -55,16 +62,69 @@ class Provenance(Schema):
 
 
 class BoilingPointAnswer(Provenance):
-    fluid = fields.String(required=True, metadata={"description": "Catalog id of the fluid."})
+    fluid = fields.String(required=True, metadata={"description": _FLUID})
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
     boiling_point = fields.Nested(Temperature, required=True, metadata={"description": "Saturation temperature."})
     sensitivity = fields.Nested(
         Slope, required=True, metadata={"description": "dT/dp: how far the boiling point moves per unit of pressure."}
     )
+    surface_pressure = fields.Nested(
+        Pressure,
+        metadata={
+            "description": "With `depth`: the pressure on the surface; `pressure` is then the pressure at the sensor."
+        },
+    )
+    boiling_point_uncertainty = fields.Nested(
+        TemperatureDifference,
+        metadata={
+            "description": "With `pressure_uncertainty`: |dT/dp| times it, the standard uncertainty of the boiling "
+            "point from the pressure reading alone."
+        },
+    )
+
+
+class SaturationMarginAnswer(Provenance):
+    fluid = fields.String(required=True, metadata={"description": _FLUID})
+    pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
+    temperature = fields.Nested(Temperature, required=True, metadata={"description": "The measured temperature."})
+    saturation_temperature = fields.Nested(Temperature, required=True)
+    margin = fields.Nested(
+        TemperatureDifference,
+        required=True,
+        metadata={"description": "Saturation temperature minus measured temperature; positive means below boiling."},
+    )
+    state = fields.Raw(
+        required=True,
+        metadata={
+            "description": "subcooled, saturated (within tolerance) or superheated; an array for array requests.",
+            "oneOf": [
+                {"type": "string", "enum": ["subcooled", "saturated", "superheated"]},
+                {"type": "array", "items": {"type": "string", "enum": ["subcooled", "saturated", "superheated"]}},
+            ],
+        },
+    )
+    tolerance = fields.Nested(TemperatureDifference, required=True)
+
+
+class NpshAnswer(Provenance):
+    fluid = fields.String(required=True, metadata={"description": _FLUID})
+    pressure = fields.Nested(
+        Pressure, required=True, metadata={"description": "Absolute pressure on the liquid surface."}
+    )
+    temperature = fields.Nested(Temperature, required=True)
+    vapor_pressure = fields.Nested(Pressure, required=True)
+    liquid_density = fields.Nested(
+        Density, required=True, metadata={"description": "Saturated-liquid density at the liquid temperature."}
+    )
+    static_head = fields.Nested(Length, required=True)
+    friction_loss = fields.Nested(Length, required=True)
+    npsh_available = fields.Nested(
+        Length, required=True, metadata={"description": "Net positive suction head available, as a head of the liquid."}
+    )
 
 
 class VaporPressureAnswer(Provenance):
-    fluid = fields.String(required=True)
+    fluid = fields.String(required=True, metadata={"description": _FLUID})
     temperature = fields.Nested(Temperature, required=True)
     vapor_pressure = fields.Nested(Pressure, required=True, metadata={"description": "Saturation pressure."})
     sensitivity = fields.Nested(Slope, required=True, metadata={"description": "dp/dT along saturation."})
@@ -73,7 +133,7 @@ class VaporPressureAnswer(Provenance):
 class ElevationAnswer(Provenance):
     elevation = fields.Nested(Length, required=True, metadata={"description": "Geometric elevation."})
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "Absolute air pressure there."})
-    fluid = fields.String(metadata={"description": "Present when the lookup went through a boiling point."})
+    fluid = fields.String(metadata={"description": f"{_FLUID} Present when the lookup went through a boiling point."})
     boiling_point = fields.Nested(Temperature, metadata={"description": "The boiling point asked for."})
 
 
@@ -113,14 +173,14 @@ class FluidSummary(Schema):
     range = fields.Nested(
         ValidRange, required=True, metadata={"description": "Stated range of the vapor-pressure equation."}
     )
+    method = fields.String(required=True, metadata={"description": "The vapor-pressure equation's published name."})
+    source = fields.String(required=True, metadata={"description": "Citation of its coefficients."})
 
 
 class FluidDetail(FluidSummary):
     molar_mass = fields.Float(required=True, metadata={"description": "Molar mass [kg/mol]."})
     critical_point = fields.Nested(FixedPoint, required=True)
     triple_point = fields.Nested(FixedPoint, required=True)
-    method = fields.String(required=True)
-    source = fields.String(required=True)
     constants_source = fields.String(
         required=True, metadata={"description": "Citation of the critical point, triple point and molar mass."}
     )

@@ -1,0 +1,163 @@
+"""Field answers: margin to boiling, and NPSH available at a pump suction."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+from flask import Blueprint
+from marshmallow import fields, validate
+
+from service.api import schemas
+from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
+from service.api.operations import Input, Inputs, Operation
+from service.api.quantities import DENSITY, difference, quantity
+from service.api.rules import (
+    GRAVITY,
+    PRESSURE_INPUTS,
+    STANDARD_ATMOSPHERE_WARNING,
+    check_boiling_pressure,
+    check_liquid_temperature,
+    local_pressure,
+    note_near_critical,
+    provenance,
+    refuse_outside,
+    require_liquid_density,
+)
+from service.physics.units import difference_scale
+
+blueprint = Blueprint("margins", __name__)
+
+DEFAULT_TOLERANCE = 0.1
+"""Within this many kelvin of the saturation temperature a liquid counts as saturated."""
+
+TOLERANCE = fields.Float(
+    allow_nan=False,
+    validate=validate.Range(min=0.0),
+    metadata={
+        "description": "Half-width of the `saturated` band, as a temperature difference in K (for K and degC "
+        "requests) or degR (for degF and degR requests). Default 0.1 K."
+    },
+)
+NPSH_CAUTION = (
+    "NPSH available must exceed the pump maker's NPSH required for this duty point by the margin the maker "
+    "and the applicable standard call for; confirm with the maker and a licensed engineer."
+)
+
+
+def saturation_margin(inputs: Inputs) -> dict[str, Any]:
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
+    warnings: list[str] = []
+    local = local_pressure(inputs)
+    check_boiling_pressure(fluid, local.value, p_unit, inputs.options["extrapolate"], warnings)
+    saturation = fluid.saturation_temperature(local.value)
+    note_near_critical(fluid, saturation, t_unit, warnings)
+    tolerance_setting = inputs.options.get("tolerance")
+    tolerance = DEFAULT_TOLERANCE if tolerance_setting is None else tolerance_setting * difference_scale(t_unit.code)
+    margin = saturation - inputs.values["temperature"]
+    state = np.where(margin > tolerance, "subcooled", np.where(margin < -tolerance, "superheated", "saturated"))
+    return {
+        "fluid": fluid.id,
+        "pressure": quantity(local.value, p_unit),
+        "temperature": quantity(inputs.values["temperature"], t_unit),
+        "saturation_temperature": quantity(saturation, t_unit),
+        "margin": difference(margin, t_unit),
+        "state": state.tolist() if state.ndim else str(state),
+        "tolerance": difference(tolerance, t_unit),
+        **provenance(fluid, STANDARD_ATMOSPHERE_WARNING if local.standard_atmosphere else None, warnings),
+    }
+
+
+def npsh_available(inputs: Inputs) -> dict[str, Any]:
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    p_unit, t_unit, l_unit = inputs.units["pressure"], inputs.units["temperature"], inputs.units["length"]
+    extrapolate = inputs.options["extrapolate"]
+    warnings: list[str] = []
+    temperature = inputs.values["temperature"]
+    check_liquid_temperature(fluid, temperature, t_unit, extrapolate, warnings)
+    density = require_liquid_density(fluid)
+    outside = (temperature < density.t_min) | (temperature > density.t_max)
+    if outside.any():
+        where = f"the stated range of the {density.method} for {fluid.name}, {{limit}}"
+        if not extrapolate:
+            refuse_outside("temperature", temperature, t_unit, density.t_min, density.t_max, where, where)
+        warnings.append(
+            f"{int(outside.sum())} value(s) of temperature lie outside the stated range of the "
+            f"{density.method}: the density is extrapolated."
+        )
+    local = local_pressure(inputs)
+    friction = inputs.get("friction_loss")
+    friction = np.zeros(inputs.shape) if friction is None else friction
+    refuse_outside("friction_loss", friction, l_unit, 0.0, None, "zero, {limit}: a loss is not negative", "")
+    vapor = fluid.saturation_pressure(temperature)
+    rho = density.density(temperature)
+    static = inputs.values["static_head"]
+    npsh = (local.value - vapor) / (rho * GRAVITY) + static - friction
+    if (local.value < vapor).any():
+        warnings.append(
+            "The surface pressure is below the liquid's vapor pressure: the liquid boils at the "
+            "surface, and no pump suction from it is free of vapor."
+        )
+    warnings.append(NPSH_CAUTION)
+    return {
+        "fluid": fluid.id,
+        "pressure": quantity(local.value, p_unit),
+        "temperature": quantity(temperature, t_unit),
+        "vapor_pressure": quantity(vapor, p_unit),
+        "liquid_density": quantity(rho, DENSITY),
+        "static_head": quantity(static, l_unit),
+        "friction_loss": quantity(friction, l_unit),
+        "npsh_available": quantity(npsh, l_unit),
+        **provenance(fluid, STANDARD_ATMOSPHERE_WARNING if local.standard_atmosphere else None, warnings, density),
+    }
+
+
+MEASURED_TEMPERATURE = Input("temperature", "Measured temperature of the liquid.", required=True)
+
+Operation(
+    path="/v1/saturation-margin",
+    name="SaturationMargin",
+    summary="How far a liquid is from boiling",
+    description=(
+        "The saturation temperature at the pressure on the liquid (given as for /v1/boiling-point) minus the "
+        "measured `temperature`: a positive `margin` means below boiling. `state` is `subcooled`, `saturated` "
+        "(within `tolerance`) or `superheated`. Differences are in K for kelvin and Celsius requests and in "
+        "degR for Fahrenheit and Rankine requests."
+    ),
+    inputs={"temperature": MEASURED_TEMPERATURE, **PRESSURE_INPUTS},
+    options={"fluid": FLUID, "extrapolate": EXTRAPOLATE, "tolerance": TOLERANCE},
+    body_options={"fluid": BODY_FLUID},
+    dimensions=("pressure", "temperature", "length"),
+    response=schemas.SaturationMarginAnswer,
+    compute=saturation_margin,
+    example={"fluid": "ethanol", "temperature": 48.0, "gauge_pressure": -55.0, "elevation": 1420.0},
+).register(blueprint)
+
+Operation(
+    path="/v1/npsh-available",
+    name="NpshAvailable",
+    summary="Net positive suction head available at a pump",
+    description=(
+        "NPSHa = (p_surface - p_vapor) / (rho g) + static_head - friction_loss, with g = 9.80665 m/s2, the "
+        "vapor pressure and saturated-liquid density at the liquid `temperature`, and the pressure on the "
+        "liquid surface given as for /v1/boiling-point. `static_head` is the liquid level above the pump "
+        "suction centreline (negative for a suction lift). Compare NPSHa with the pump maker's NPSH required "
+        "plus the margin the maker and the applicable standard call for; the maker and a licensed engineer "
+        "have the last word."
+    ),
+    inputs={
+        "temperature": MEASURED_TEMPERATURE,
+        **PRESSURE_INPUTS,
+        "static_head": Input(
+            "length", "Liquid level above the pump suction centreline; negative for a lift.", required=True
+        ),
+        "friction_loss": Input("length", "Head lost to friction in the suction line (default 0)."),
+    },
+    options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+    body_options={"fluid": BODY_FLUID},
+    dimensions=("pressure", "temperature", "length"),
+    response=schemas.NpshAnswer,
+    compute=npsh_available,
+    example={"fluid": "water", "temperature": 72.0, "elevation": 1420.0, "static_head": 2.4, "friction_loss": 0.6},
+).register(blueprint)

@@ -1,0 +1,24 @@
+"""Settings from environment variables."""
+
+import os
+from pathlib import Path
+
+import pytest
+
+from service.config import DEFAULTS, settings
+
+
+def test_defaults() -> None:
+    assert settings({}) == {**DEFAULTS, "EXTRA_CATALOGS": []}
+    assert DEFAULTS["MAX_POINTS"] == 100_000
+
+
+def test_overrides() -> None:
+    out = settings({"BOILING_MAX_POINTS": "500", "BOILING_EXTRA_CATALOGS": f"/a.toml{os.pathsep}/b.toml"})
+    assert out["MAX_POINTS"] == 500
+    assert out["EXTRA_CATALOGS"] == [Path("/a.toml"), Path("/b.toml")]
+
+
+def test_bad_number_stops_start_up() -> None:
+    with pytest.raises(SystemExit, match="BOILING_MAX_POINTS must be a whole number"):
+        settings({"BOILING_MAX_POINTS": "lots"})
