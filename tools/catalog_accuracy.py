@@ -1,13 +1,15 @@
-"""Boiling points of the built-in catalog against CoolProp's reference equations of state.
+"""Boiling points and liquid densities of the built-in catalog against CoolProp's reference equations of state.
 
 The reference is CoolProp 8.0.0 (I.H. Bell, J. Wronski, S. Quoilin, V. Lemort, Ind. Eng. Chem.
 Res. 53 (2014) 2498-2508, doi:10.1021/ie4033999) and the reference-quality Helmholtz equations of
 state it implements, one per fluid (named by CoolProp's BibTeX key). A catalog fluid is matched to
 a CoolProp fluid by CAS number. Every evaluation on the catalog side goes through
 :func:`service.fluids.catalog.load_catalog` and :meth:`~service.fluids.catalog.Fluid.saturation_temperature`;
-nothing here re-implements a vapor-pressure equation.
+nothing here re-implements a vapor-pressure equation. Saturated-liquid densities likewise go through
+:attr:`~service.fluids.catalog.Fluid.liquid_density` and its ``density`` callable.
 
-Shared by ``tests/fluids/test_reference_accuracy.py`` and ``tools/check_catalog.py``.
+Shared by ``tests/fluids/test_reference_accuracy.py``, ``tests/fluids/test_liquid_density.py`` and
+``tools/check_catalog.py``.
 """
 
 from __future__ import annotations
@@ -28,6 +30,13 @@ WORST_LIMIT = 0.5
 """Largest |dT| [K] allowed for any fluid."""
 MEDIAN_LIMIT = 0.1
 """Largest median over fluids of the per-fluid worst |dT| [K]."""
+DENSITY_POINTS = 60
+"""Evenly spaced temperatures per fluid for the liquid-density comparison."""
+DENSITY_TOP = 0.9
+"""The density comparison ends at this fraction of CoolProp's critical temperature: closer to the
+critical point the DIPPR 105 form cannot follow the steep fall of the saturated-liquid density."""
+DENSITY_LIMIT = 0.03
+"""Largest relative deviation of a fluid's saturated-liquid density from CoolProp allowed."""
 
 # The highest pressure compared is taken this far (relative) below the upper end of the range: CoolProp's
 # saturation solver is unreliable at its critical point, and the catalog's own inverse should not be asked
@@ -50,6 +59,23 @@ class Comparison:
     """max |T_catalog - T_CoolProp| [K] over the pressures."""
     at_pressure: float
     """The pressure [Pa] of the worst deviation."""
+
+
+@dataclass(frozen=True)
+class DensityComparison:
+    """The worst saturated-liquid density deviation of one catalog fluid from its CoolProp reference."""
+
+    fluid_id: str
+    coolprop_name: str
+    method: str
+    """The catalog's density correlation (its ``method``)."""
+    t_low: float
+    t_high: float
+    """The compared range [K]: the density table's stated range within CoolProp's triple point..DENSITY_TOP Tc."""
+    worst: float
+    """The relative deviation rho_catalog / rho_CoolProp - 1 of largest magnitude."""
+    at_temperature: float
+    """The temperature [K] of the worst deviation."""
 
 
 def coolprop_version() -> str:
@@ -102,6 +128,76 @@ def compare_catalog(
     """:func:`compare` for every catalog fluid that CoolProp covers, in catalog order."""
     names = coolprop_names_by_cas() if names_by_cas is None else names_by_cas
     return [compare(f, names[f.cas], points) for f in catalog.fluids.values() if f.cas in names]
+
+
+def coolprop_liquid_density(name: str, temperature: float) -> float:
+    """CoolProp's saturated-liquid density [kg/m3] at ``temperature`` [K]."""
+    return float(PropsSI("D", "T", temperature, "Q", 0, name))
+
+
+def compare_density(fluid: Fluid, coolprop_name: str, points: int = DENSITY_POINTS) -> DensityComparison:
+    """Saturated-liquid density of ``fluid`` at ``points`` evenly spaced temperatures against CoolProp's.
+
+    The range is [max(t_min, Ttriple), min(t_max, DENSITY_TOP * Tc)], Ttriple and Tc of the CoolProp
+    equation of state. ``fluid`` must have a density table.
+    """
+    density = fluid.liquid_density
+    if density is None:
+        raise ValueError(f"{fluid.id} has no liquid density table")
+    low = max(density.t_min, PropsSI("Ttriple", coolprop_name))
+    high = min(density.t_max, DENSITY_TOP * PropsSI("Tcrit", coolprop_name))
+    temperatures = np.linspace(low, high, points)
+    ours = density.density(temperatures)
+    theirs = np.array([coolprop_liquid_density(coolprop_name, float(t)) for t in temperatures])
+    deviation = ours / theirs - 1.0
+    worst = int(np.argmax(np.abs(deviation)))
+    return DensityComparison(
+        fluid_id=fluid.id,
+        coolprop_name=coolprop_name,
+        method=density.method,
+        t_low=low,
+        t_high=high,
+        worst=float(deviation[worst]),
+        at_temperature=float(temperatures[worst]),
+    )
+
+
+def compare_density_catalog(
+    catalog: Catalog, names_by_cas: dict[str, str] | None = None, points: int = DENSITY_POINTS
+) -> list[DensityComparison]:
+    """:func:`compare_density` for every catalog fluid with a density table that CoolProp covers."""
+    names = coolprop_names_by_cas() if names_by_cas is None else names_by_cas
+    return [
+        compare_density(f, names[f.cas], points)
+        for f in catalog.fluids.values()
+        if f.cas in names and f.liquid_density is not None
+    ]
+
+
+def density_table(results: Iterable[DensityComparison]) -> str:
+    """A markdown table: fluid | worst deviation % | at T K | compared range | correlation."""
+    lines = [
+        "| fluid | worst rho/rho_ref - 1, % | at T K | compared range K | density correlation | CoolProp name |",
+        "|---|---:|---:|---|---|---|",
+    ]
+    lines += [
+        f"| {r.fluid_id} | {100 * r.worst:+.2f} | {r.at_temperature:.2f} | {r.t_low:.2f}-{r.t_high:.2f} "
+        f"| {r.method} | {r.coolprop_name} |"
+        for r in results
+    ]
+    return "\n".join(lines)
+
+
+def density_summary(results: list[DensityComparison]) -> str:
+    """One line: how many fluids, the median and the worst of the per-fluid worst |deviation|."""
+    worst = max(results, key=lambda r: abs(r.worst))
+    within = sum(abs(r.worst) <= DENSITY_LIMIT for r in results)
+    median = statistics.median(abs(r.worst) for r in results)
+    return (
+        f"{len(results)} liquid densities compared with CoolProp {coolprop_version()} up to {DENSITY_TOP} Tc: "
+        f"median of the per-fluid worst |deviation| {100 * median:.2f} %, maximum {100 * abs(worst.worst):.2f} % "
+        f"({worst.fluid_id}); {within}/{len(results)} within {100 * DENSITY_LIMIT:g} %"
+    )
 
 
 def median_worst(results: Iterable[Comparison]) -> float:

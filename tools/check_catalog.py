@@ -5,14 +5,16 @@ Every number on the catalog side comes from :func:`service.fluids.catalog.load_c
 service's own loader and equations); the CoolProp comparison is :mod:`tools.catalog_accuracy`,
 which the test ``tests/fluids/test_reference_accuracy.py`` uses too. Besides the boiling-point
 comparison the report lists, for every fluid, the equation's boiling point at 101325 Pa against
-the entry's ``normal_boiling_point`` and the equation at min(t_max, Tc) against ``critical_pressure``.
+the entry's ``normal_boiling_point`` and the equation at min(t_max, Tc) against ``critical_pressure``,
+and, for every fluid with a density table that CoolProp covers, the saturated-liquid density
+``Fluid.liquid_density.density(T)`` against CoolProp's up to 0.9 Tc.
 
 Run from the repository root with the project's environment (CoolProp is a test dependency):
 
     python -m tools.check_catalog [--points N] [--out docs/catalog-accuracy.md]
 
-Exit status 1 when a target is missed: worst |dT| above 0.5 K for a fluid, or the median of the
-per-fluid worst |dT| above 0.1 K.
+Exit status 1 when a target is missed: worst |dT| above 0.5 K for a fluid, the median of the
+per-fluid worst |dT| above 0.1 K, or a liquid density more than 3 % from CoolProp's.
 """
 
 from __future__ import annotations
@@ -27,12 +29,18 @@ if __package__ in (None, ""):  # run as a script: make the repository root impor
 
 from service.fluids.catalog import Fluid, load_catalog
 from tools.catalog_accuracy import (
+    DENSITY_LIMIT,
+    DENSITY_POINTS,
+    DENSITY_TOP,
     MEDIAN_LIMIT,
     POINTS,
     WORST_LIMIT,
     compare_catalog,
+    compare_density_catalog,
     coolprop_names_by_cas,
     coolprop_version,
+    density_summary,
+    density_table,
     median_worst,
     summary,
     table,
@@ -52,7 +60,23 @@ def _fixed_point_row(fluid: Fluid) -> str:
     ratio = float(fluid.saturation_pressure(top)) / fluid.critical_pressure - 1.0
     reaches = math.isclose(top, fluid.critical_temperature, rel_tol=2e-3)
     crit = f"{100 * ratio:+.2f}" if reaches else f"n/a (equation ends at {top:.1f} K)"
-    return f"| {fluid.id} | {fluid.method} | {fluid.stated_range[0]:.2f}-{fluid.stated_range[1]:.2f} | {nbp} | {crit} |"
+    return (
+        f"| {fluid.id} | {fluid.method} | {fluid.stated_range[0]:.2f}-{fluid.stated_range[1]:.2f} | {nbp} | {crit} "
+        f"| {_density_cell(fluid)} |"
+    )
+
+
+def _density_cell(fluid: Fluid) -> str:
+    """The saturated-liquid density at the normal boiling point (the equation's T at 101325 Pa) and its range."""
+    density = fluid.liquid_density
+    if density is None:
+        return "no density table"
+    if fluid.normal_boiling_point is None:
+        return f"n/a (no normal boiling point; table {density.t_min:.2f}-{density.t_max:.2f} K)"
+    t_atm = float(fluid.saturation_temperature(ATMOSPHERE))
+    if not density.t_min <= t_atm <= density.t_max:
+        return f"n/a (T(101325 Pa) = {t_atm:.2f} K outside {density.t_min:.2f}-{density.t_max:.2f} K)"
+    return f"{float(density.density(t_atm)):.1f} ({density.t_min:.2f}-{density.t_max:.2f} K)"
 
 
 def report(points: int) -> tuple[str, bool]:
@@ -61,10 +85,12 @@ def report(points: int) -> tuple[str, bool]:
     names = coolprop_names_by_cas()
     results = compare_catalog(catalog, names, points)
     missing = [f.id for f in catalog.fluids.values() if f.cas not in names]
+    densities = compare_density_catalog(catalog, names)
+    no_density = [f.id for f in catalog.fluids.values() if f.liquid_density is None]
     fixed = [
         "| fluid | equation | stated range K | T(101325 Pa) - normal_boiling_point, K "
-        "| p(min(t_max, Tc)) / pc - 1, % |",
-        "|---|---|---|---:|---:|",
+        "| p(min(t_max, Tc)) / pc - 1, % | liquid density at T(101325 Pa), kg/m3 (density table range) |",
+        "|---|---|---|---:|---:|---:|",
         *(_fixed_point_row(f) for f in catalog.fluids.values()),
     ]
     text = "\n".join(
@@ -76,13 +102,24 @@ def report(points: int) -> tuple[str, bool]:
             f"- {summary(results)}",
             f"- not in CoolProp (not compared): {', '.join(missing) or 'none'}",
             "",
+            "## Saturated-liquid densities against CoolProp",
+            "",
+            density_table(densities),
+            "",
+            f"- {density_summary(densities)}",
+            f"- no density table: {', '.join(no_density) or 'none'}",
+            "",
             "## Fixed points of each entry",
             "",
             *fixed,
             "",
         ]
     )
-    ok = max(r.worst_dt for r in results) <= WORST_LIMIT and median_worst(results) <= MEDIAN_LIMIT
+    ok = (
+        max(r.worst_dt for r in results) <= WORST_LIMIT
+        and median_worst(results) <= MEDIAN_LIMIT
+        and max(abs(r.worst) for r in densities) <= DENSITY_LIMIT
+    )
     return text, ok
 
 
@@ -97,6 +134,12 @@ log-spaced pressures spanning the fluid's stated range within CoolProp's triple-
 (pressures both reach). The table gives the largest |dT| and the pressure where it occurs. Targets:
 every fluid within {worst} K, median of the per-fluid worst within {median} K.
 
+The saturated-liquid density of every fluid with a density table, `Fluid.liquid_density.density(T)`,
+is compared with CoolProp's at {density_points} evenly spaced temperatures over the table's stated range
+within CoolProp's triple point to {density_top} Tc (closer to the critical point the DIPPR 105 form drifts).
+The table gives the relative deviation of largest magnitude and its temperature. Target: every fluid
+within {density_limit:g} %.
+
 """
 
 
@@ -107,7 +150,15 @@ def main(argv: list[str] | None = None) -> int:
     args = parser.parse_args(argv)
     text, ok = report(args.points)
     print(text)
-    header = HEADER.format(version=coolprop_version(), points=args.points, worst=WORST_LIMIT, median=MEDIAN_LIMIT)
+    header = HEADER.format(
+        version=coolprop_version(),
+        points=args.points,
+        worst=WORST_LIMIT,
+        median=MEDIAN_LIMIT,
+        density_points=DENSITY_POINTS,
+        density_top=DENSITY_TOP,
+        density_limit=100 * DENSITY_LIMIT,
+    )
     args.out.write_text(header + text, encoding="utf-8")
     return 0 if ok else 1
 
