@@ -217,8 +217,9 @@ def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapol
         f"the triple-point pressure of {fluid.name}, {{limit}}: {_below_triple(fluid)}",
         f"the critical pressure of {fluid.name}, {{limit}}: above it liquid and vapor no longer differ",
     )
-    reach = tuple(float(p) for p in fluid.saturation_pressure(np.array(fluid.temperature_limits)))
-    _check_stated_range("pressure", pressure, unit, (fluid.p_min, fluid.p_max), reach, fluid, extrapolate, warnings)
+    _check_stated_range(
+        "pressure", pressure, unit, (fluid.p_min, fluid.p_max), fluid.pressure_limits, fluid, extrapolate, warnings
+    )
 
 
 def check_liquid_temperature(

@@ -12,6 +12,7 @@ import math
 import tomllib
 from collections.abc import Callable, Iterable, Mapping
 from dataclasses import dataclass, field
+from functools import cached_property
 from pathlib import Path
 from typing import Any
 
@@ -21,7 +22,7 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.schema import FluidEntrySchema
 from service.physics import water
-from service.physics.correlations import Dippr105, ExtendedAntoine, VaporPressureEquation, Wagner
+from service.physics.correlations import Dippr105, ExtendedAntoine, InverseTable, VaporPressureEquation, Wagner
 from service.physics.units import resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
@@ -86,6 +87,8 @@ class Fluid:
     notes: tuple[str, ...] = ()
     """Cautions that go into the warnings of every answer from this fluid."""
     liquid_density: LiquidDensity | None = None
+    tabulated: bool = True
+    """Answer saturation temperatures from a table (catalog fluids) or by Newton (a request's own)."""
 
     @property
     def temperature_limits(self) -> tuple[float, float]:
@@ -104,12 +107,12 @@ class Fluid:
         low, high = self.temperature_limits
         return max(self.t_min, low), min(self.t_max, high)
 
-    @property
+    @cached_property
     def p_min(self) -> float:
         """Saturation pressure at the lower end of the stated range [Pa]."""
         return float(self.equation.pressure(self.stated_range[0]))
 
-    @property
+    @cached_property
     def p_max(self) -> float:
         """Saturation pressure at the upper end of the stated range [Pa]."""
         return float(self.equation.pressure(self.stated_range[1]))
@@ -123,8 +126,24 @@ class Fluid:
         return self.equation.slope(temperature)
 
     def saturation_temperature(self, pressure: ArrayLike) -> NDArray[np.float64]:
-        """Boiling point [K] at absolute ``pressure`` [Pa], searched within :attr:`temperature_limits`."""
+        """Boiling point [K] at absolute ``pressure`` [Pa], within :attr:`temperature_limits`.
+
+        Catalog fluids answer from an :class:`InverseTable` built on first use; a fluid
+        defined in a request, used once, runs the Newton iteration directly.
+        """
+        if self.tabulated:
+            return self._inverse(pressure)
         return self.equation.temperature(pressure, *self.temperature_limits)
+
+    @cached_property
+    def _inverse(self) -> InverseTable:
+        return InverseTable(self.equation, *self.temperature_limits)
+
+    @cached_property
+    def pressure_limits(self) -> tuple[float, float]:
+        """Saturation pressures at :attr:`temperature_limits` [Pa]: as far as extrapolation reaches."""
+        low, high = self.equation.pressure(np.array(self.temperature_limits))
+        return float(low), float(high)
 
 
 def equation_from_entry(

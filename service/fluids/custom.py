@@ -61,6 +61,7 @@ def fluid_from_equation(name: str, vapor_pressure: Mapping[str, Any], critical: 
         critical_temperature=tc,
         critical_pressure=pc,
         notes=(_UNCHECKED,),
+        tabulated=False,
     )
 
 
@@ -102,4 +103,5 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
         method=method,
         source=source,
         notes=tuple(notes),
+        tabulated=False,
     )

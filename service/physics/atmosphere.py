@@ -20,6 +20,8 @@ from __future__ import annotations
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from service.physics.blocks import blockwise
+
 STANDARD_GRAVITY = 9.80665
 """g0 [m/s2]."""
 GAS_CONSTANT = 8.31432
@@ -57,6 +59,13 @@ def _layer_bases() -> tuple[NDArray, NDArray]:
 
 
 _BASE_T, _BASE_P = _layer_bases()
+_LINEAR = _LAPSE != 0.0
+_SAFE_LAPSE = np.where(_LINEAR, _LAPSE, 1.0)
+_ALPHA = _BASE_T - _LAPSE * _BASE_HEIGHT  # T_M = ALPHA + L H, eq. (23)
+# Eqs. (33a) and (33b) per layer as ln(P/Pb) = B ln(T_M/Tb) + C (H - Hb):
+# B = -k/L, C = 0 where the lapse rate L is not zero; B = 0, C = -k/Tb where it is.
+_B = np.where(_LINEAR, -_K / _SAFE_LAPSE, 0.0)
+_C = np.where(_LINEAR, 0.0, -_K / _BASE_T)
 # Table 8: M/M0 against geometric elevation, 80 to 86 km; 1 below 80 km.
 _RATIO_Z = np.arange(80_000.0, 86_001.0, 500.0)
 _RATIO_M = np.array(
@@ -97,9 +106,14 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
 
 
 def _layer_of_height(h: NDArray) -> NDArray[np.intp]:
-    return np.clip(np.searchsorted(_BASE_HEIGHT, h, side="right") - 1, 0, _BASE_HEIGHT.size - 1)
+    """Index of the layer holding each geopotential height: how many upper bases lie at or below it."""
+    index = np.zeros(h.shape, dtype=np.intp)
+    for base in _BASE_HEIGHT[1:]:
+        index += h >= base
+    return index
 
 
+@blockwise
 def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
     """Kinetic air temperature T [K] at geometric elevation [m], eq. (23) with Table 8.
 
@@ -114,9 +128,10 @@ def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
 
 def _molecular_temperature(h: NDArray) -> NDArray:
     i = _layer_of_height(h)
-    return _BASE_T[i] + _LAPSE[i] * (h - _BASE_HEIGHT[i])
+    return _ALPHA[i] + _LAPSE[i] * h
 
 
+@blockwise
 def pressure_at_elevation(
     elevation: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
 ) -> NDArray[np.float64]:
@@ -131,11 +146,12 @@ def pressure_at_elevation(
     """
     h = geopotential_height(elevation)
     i = _layer_of_height(h)
-    ln_ratio = _layer_ln_pressure_drop(_LAPSE[i], _BASE_T[i], h - _BASE_HEIGHT[i])
-    scale = np.asarray(sea_level_pressure, dtype=float) / SEA_LEVEL_PRESSURE
-    return _BASE_P[i] * np.exp(ln_ratio) * scale
+    base_t = _BASE_T[i]
+    ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / base_t) + _C[i] * (h - _BASE_HEIGHT[i])
+    return _BASE_P[i] * np.exp(ln_ratio) * (np.asarray(sea_level_pressure, dtype=float) / SEA_LEVEL_PRESSURE)
 
 
+@blockwise
 def density_at_elevation(
     elevation: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
 ) -> NDArray[np.float64]:
@@ -148,6 +164,7 @@ def density_at_elevation(
     return pressure_at_elevation(elevation, sea_level_pressure) * MOLAR_MASS_AIR / (GAS_CONSTANT * t_m)
 
 
+@blockwise
 def elevation_at_pressure(
     pressure: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
 ) -> NDArray[np.float64]:
@@ -162,10 +179,9 @@ def elevation_at_pressure(
     p = np.asarray(pressure, dtype=float) * SEA_LEVEL_PRESSURE / np.asarray(sea_level_pressure, dtype=float)
     i = np.clip(np.searchsorted(-_BASE_P, -p, side="right") - 1, 0, _BASE_P.size - 1)
     ln_ratio = np.log(p / _BASE_P[i])
-    lapse, base_t = _LAPSE[i], _BASE_T[i]
-    linear = lapse != 0.0
-    safe_lapse = np.where(linear, lapse, 1.0)
-    dh = np.where(linear, base_t * np.expm1(-safe_lapse * ln_ratio / _K) / safe_lapse, -base_t * ln_ratio / _K)
+    base_t = _BASE_T[i]
+    safe_lapse = _SAFE_LAPSE[i]
+    dh = np.where(_LINEAR[i], base_t * np.expm1(-safe_lapse * ln_ratio / _K) / safe_lapse, -base_t * ln_ratio / _K)
     return geometric_elevation(_BASE_HEIGHT[i] + dh)
 
 

@@ -9,11 +9,16 @@ converges for every input whose answer lies inside the bracket.
 
 from __future__ import annotations
 
+import math
 from abc import ABC, abstractmethod
+from collections.abc import Sequence
 from dataclasses import dataclass
+from functools import cached_property
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
+
+from service.physics.blocks import blockwise
 
 _MAX_ITERATIONS = 60
 _RELATIVE_TOLERANCE = 1e-14
@@ -21,6 +26,10 @@ _RELATIVE_TOLERANCE = 1e-14
 
 class VaporPressureEquation(ABC):
     """A saturation-pressure correlation ln p(T) with its analytic slope."""
+
+    @abstractmethod
+    def ln_pressure(self, temperature: NDArray) -> NDArray:
+        """ln(p [Pa]) at ``temperature`` [K]."""
 
     @abstractmethod
     def ln_pressure_and_slope(self, temperature: NDArray) -> tuple[NDArray, NDArray]:
@@ -33,24 +42,29 @@ class VaporPressureEquation(ABC):
 
     def pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Saturation pressure [Pa] at ``temperature`` [K]."""
-        return np.exp(self.ln_pressure_and_slope(np.asarray(temperature, dtype=float))[0])
+        return blockwise(lambda t: np.exp(self.ln_pressure(t)))(temperature)
 
     def slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """dp/dT along the saturation curve [Pa/K] at ``temperature`` [K]."""
-        ln_p, d_ln_p = self.ln_pressure_and_slope(np.asarray(temperature, dtype=float))
-        return np.exp(ln_p) * d_ln_p
+
+        def dp_dt(t: NDArray) -> NDArray:
+            ln_p, d_ln_p = self.ln_pressure_and_slope(t)
+            return np.exp(ln_p) * d_ln_p
+
+        return blockwise(dp_dt)(temperature)
 
     def initial_temperature(self, ln_p: NDArray, low: float, high: float) -> NDArray:
         """A first guess of T(p) [K]: the Clausius-Clapeyron chord between ``low`` and ``high``."""
-        ln_lo, ln_hi = (float(v) for v in self.ln_pressure_and_slope(np.array([low, high]))[0])
+        ln_lo, ln_hi = (float(v) for v in self.ln_pressure(np.array([low, high])))
         x = 1 / low + (ln_p - ln_lo) * (1 / high - 1 / low) / (ln_hi - ln_lo)
         return 1 / x
 
     def temperature(self, pressure: ArrayLike, low: float, high: float) -> NDArray[np.float64]:
         """Saturation temperature [K] at ``pressure`` [Pa], searched in [``low``, ``high``] [K].
 
-        Answers outside the bracket come back as the nearer end: callers check the
-        pressure range first.
+        The reference inverse: a safeguarded Newton iteration, to full precision. Answers
+        outside the bracket come back as the nearer end: callers check the pressure range
+        first. :class:`InverseTable` gives the same answers faster.
         """
         ln_p = np.log(np.asarray(pressure, dtype=float))
         x_lo = np.full(ln_p.shape, 1 / high)
@@ -65,7 +79,7 @@ class VaporPressureEquation(ABC):
             x_lo = np.where(residual > 0, x, x_lo)
             x_hi = np.where(residual <= 0, x, x_hi)
             newton = x + residual / (d_ln_p * t * t)
-            step = np.where((newton > x_lo) & (newton < x_hi), newton, 0.5 * (x_lo + x_hi))
+            step = np.where((newton >= x_lo) & (newton <= x_hi), newton, 0.5 * (x_lo + x_hi))
             # Each point stops at its own convergence, so an array answer equals the single ones.
             moved = np.abs(step - x) > _RELATIVE_TOLERANCE * x
             x = np.where(active, step, x)
@@ -73,6 +87,58 @@ class VaporPressureEquation(ABC):
             if not active.any():
                 break
         return np.clip(1 / x, low, high)
+
+
+class InverseTable:
+    """T(p) of an equation between two temperatures, as a piecewise-cubic Hermite table.
+
+    The nodes are exact inverses (Newton, :meth:`VaporPressureEquation.temperature`) with
+    exact slopes, spaced evenly in s = sqrt(ln p_high - ln p). In s the inverse stays smooth
+    up to a Wagner equation's critical end, where T(ln p) itself has a square-root cusp, so
+    4096 intervals reproduce the Newton answers to about 1e-10 K. One log, one sqrt and a
+    cubic per point: the fast path for every saturation-temperature request.
+    """
+
+    def __init__(self, equation: VaporPressureEquation, low: float, high: float, intervals: int = 4096) -> None:
+        self.low, self.high = low, high
+        ln_lo, self._ln_high = (float(v) for v in equation.ln_pressure(np.array([low, high])))
+        self._step = math.sqrt(self._ln_high - ln_lo) / intervals
+        self._last = intervals - 1
+        s = np.arange(intervals + 1) * self._step
+        ln_p = self._ln_high - s * s
+        nodes = equation.temperature(np.exp(ln_p), low, high)
+        nodes[0], nodes[-1] = high, low
+        _, d_ln_p = equation.ln_pressure_and_slope(nodes)
+        tangent = -2.0 * s / d_ln_p * self._step  # dT/ds, per interval
+        t0, t1, m0, m1 = nodes[:-1], nodes[1:], tangent[:-1], tangent[1:]
+        self._c = (t0, m0, 3 * (t1 - t0) - 2 * m0 - m1, 2 * (t0 - t1) + m0 + m1)
+
+    def __call__(self, pressure: ArrayLike) -> NDArray[np.float64]:
+        """Saturation temperature [K] at ``pressure`` [Pa]; pressures beyond the ends give the ends."""
+        return blockwise(self._evaluate)(pressure)
+
+    def _evaluate(self, pressure: NDArray) -> NDArray:
+        s = np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step
+        index = np.minimum(s.astype(np.intp), self._last)
+        t = np.minimum(s - index, 1.0)
+        c0, c1, c2, c3 = (c[index] for c in self._c)
+        return np.clip(((c3 * t + c2) * t + c1) * t + c0, self.low, self.high)
+
+
+def _gapped_horner(coefficients: Sequence[float], powers: Sequence[int], r: NDArray) -> NDArray:
+    """sum(c_i r**k_i) for whole powers k_i sorted high to low, by Horner over the gaps."""
+    cache: dict[int, NDArray] = {1: r}
+
+    def power(k: int) -> NDArray:
+        if k not in cache:
+            half = power(k // 2)
+            cache[k] = half * half * r if k % 2 else half * half
+        return cache[k]
+
+    total = np.full_like(r, coefficients[0])
+    for c, k, k_next in zip(coefficients[1:], powers[1:], powers, strict=False):
+        total = total * power(k_next - k) + c
+    return total * power(powers[-1]) if powers[-1] else total
 
 
 @dataclass(frozen=True)
@@ -83,6 +149,9 @@ class Wagner(VaporPressureEquation):
     B. E. Poling, J. M. Prausnitz, J. P. O'Connell, *The Properties of Gases and
     Liquids*, 5th ed., McGraw-Hill, 2001, eq. (7-3.3); and the IAPWS form for water
     (exponents 1, 1.5, 3, 3.5, 4, 7.5). Check values: see ``service.physics.water``.
+
+    Exponents that are multiples of 1/2 (all published sets) are evaluated as a
+    polynomial in sqrt(tau) by Horner's rule; any others by powers.
     """
 
     critical_temperature: float
@@ -95,17 +164,40 @@ class Wagner(VaporPressureEquation):
         """Up to the reducing temperature, where tau = 0; beyond it tau**e has no real value."""
         return 0.0, self.critical_temperature
 
+    @cached_property
+    def _half_units(self) -> tuple[list[float], list[int], list[float], list[int]] | None:
+        """Series and derivative as (coefficients, powers of sqrt(tau)), high to low; None if not half-integral."""
+        halves = [2 * e for e in self.exponents]
+        if any(h != round(h) or h < 2 for h in halves):
+            return None
+        terms = sorted(zip((int(h) for h in halves), self.coefficients, self.exponents, strict=True), reverse=True)
+        return (
+            [a for _, a, _ in terms],
+            [k for k, _, _ in terms],
+            [a * e for _, a, e in terms],
+            [k - 2 for k, _, _ in terms],
+        )
+
+    def _series(self, tau: NDArray, slope: bool) -> tuple[NDArray, NDArray | None]:
+        plan = self._half_units
+        if plan is None:
+            series = sum(a * tau**e for a, e in zip(self.coefficients, self.exponents, strict=True))
+            d = sum(a * e * tau ** (e - 1) for a, e in zip(self.coefficients, self.exponents, strict=True))
+            return np.asarray(series), np.asarray(d) if slope else None
+        r = np.sqrt(tau)
+        series = _gapped_horner(plan[0], plan[1], r)
+        return series, _gapped_horner(plan[2], plan[3], r) if slope else None
+
+    def ln_pressure(self, temperature: NDArray) -> NDArray:
+        tc = self.critical_temperature
+        series, _ = self._series(1.0 - temperature / tc, slope=False)
+        return math.log(self.critical_pressure) + tc / temperature * series
+
     def ln_pressure_and_slope(self, temperature: NDArray) -> tuple[NDArray, NDArray]:
         tc = self.critical_temperature
-        tau = 1.0 - temperature / tc
-        series = np.zeros_like(tau)
-        d_series = np.zeros_like(tau)
-        for a, e in zip(self.coefficients, self.exponents, strict=True):
-            power = tau ** (e - 1.0)
-            series += a * power * tau
-            d_series += a * e * power
+        series, d_series = self._series(1.0 - temperature / tc, slope=True)
         reduced = tc / temperature * series
-        return np.log(self.critical_pressure) + reduced, -(reduced + d_series) / temperature
+        return math.log(self.critical_pressure) + reduced, -(reduced + d_series) / temperature
 
 
 @dataclass(frozen=True)
@@ -130,6 +222,16 @@ class ExtendedAntoine(VaporPressureEquation):
     def domain(self) -> tuple[float, float]:
         """Above the pole at T = -C (and above 0 K)."""
         return max(0.0, -self.c), float("inf")
+
+    def ln_pressure(self, temperature: NDArray) -> NDArray:
+        ln_p = self.a + self.b / (temperature + self.c)
+        if self.d:
+            ln_p = ln_p + self.d * temperature
+        if self.e:
+            ln_p = ln_p + self.e * np.log(temperature)
+        if self.f:
+            ln_p = ln_p + self.f * temperature**self.g
+        return ln_p
 
     def ln_pressure_and_slope(self, temperature: NDArray) -> tuple[NDArray, NDArray]:
         shifted = temperature + self.c

@@ -5,7 +5,8 @@ Substance*, St. Petersburg, 1992, eqs. (1) and (2); W. Wagner and A. Pruss, J. P
 Ref. Data 22, 783 (1993). The inverse starts from the backward equation of IAPWS-IF97 region 4
 (IAPWS, *Revised Release on the IAPWS Industrial Formulation 1997*, 2007, eq. (31)), which
 agrees with eq. (1) to about 0.01 K, and polishes it with the safeguarded Newton iteration
-of :mod:`service.physics.correlations`.
+of :mod:`service.physics.correlations`; requests are answered from an
+:class:`~service.physics.correlations.InverseTable` of those exact inverses.
 
 SI throughout: temperature [K], pressure [Pa].
 
@@ -20,7 +21,7 @@ from __future__ import annotations
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.correlations import Wagner
+from service.physics.correlations import InverseTable, Wagner
 
 CRITICAL_TEMPERATURE = 647.096
 """Tc [K], IAPWS 1992."""
@@ -72,6 +73,7 @@ SATURATION = _WaterSaturation(
 
 TRIPLE_PRESSURE = float(SATURATION.pressure(TRIPLE_TEMPERATURE))
 """Saturation pressure at the triple point from eq. (1) [Pa]; the release gives 611.657 Pa."""
+_INVERSE = InverseTable(SATURATION, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)
 
 
 def saturation_pressure(temperature: ArrayLike) -> NDArray[np.float64]:
@@ -98,7 +100,7 @@ def saturation_temperature(pressure: ArrayLike) -> NDArray[np.float64]:
     >>> round(float(saturation_temperature(1e6)), 3)  # IF97 Table 36: 453.035632 K (IF97 is 0.008 K high)
     453.028
     """
-    return SATURATION.temperature(pressure, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)
+    return _INVERSE(pressure)
 
 
 def saturation_temperature_slope(pressure: ArrayLike) -> NDArray[np.float64]:

@@ -34,8 +34,10 @@ def test_json_stays_the_default(client) -> None:
 def test_csv_answer_parses_back(client) -> None:
     payload = {"temperature": [20.0, 95.25, 99.0], "barometric_pressure": 85.39}
     body = client.post("/v1/saturation-margin", json=payload).get_json()
-    for r in (client.post("/v1/saturation-margin?format=csv", json=payload),
-              client.post("/v1/saturation-margin", json=payload, headers={"Accept": "text/csv"})):
+    for r in (
+        client.post("/v1/saturation-margin?format=csv", json=payload),
+        client.post("/v1/saturation-margin", json=payload, headers={"Accept": "text/csv"}),
+    ):
         assert r.mimetype == "text/csv"
         rows = list(csv.DictReader(io.StringIO(r.get_data(as_text=True))))
         assert len(rows) == 3

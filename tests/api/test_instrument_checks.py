@@ -10,12 +10,15 @@ G = 9.80665
 def test_uncertainty_is_slope_times_pressure_uncertainty(client) -> None:
     body = client.get("/v1/boiling-point?barometric_pressure=85.39&pressure_uncertainty=0.05").get_json()
     assert body["boiling_point_uncertainty"] == {
-        "value": pytest.approx(body["sensitivity"]["value"] * 0.05, rel=1e-12), "unit": "K"}
+        "value": pytest.approx(body["sensitivity"]["value"] * 0.05, rel=1e-12),
+        "unit": "K",
+    }
 
 
 def test_uncertainty_in_fahrenheit_and_psi(client) -> None:
-    body = client.get("/v1/boiling-point?pressure=14.7&pressure_unit=psi&temperature_unit=degF"
-                      "&pressure_uncertainty=0.02").get_json()
+    body = client.get(
+        "/v1/boiling-point?pressure=14.7&pressure_unit=psi&temperature_unit=degF&pressure_uncertainty=0.02"
+    ).get_json()
     assert body["boiling_point_uncertainty"]["unit"] == "degR"
     assert body["boiling_point_uncertainty"]["value"] == pytest.approx(body["sensitivity"]["value"] * 0.02)
 

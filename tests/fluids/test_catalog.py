@@ -165,3 +165,11 @@ def test_a_bad_operator_file_stops_start_up(tmp_path: Path, monkeypatch) -> None
     assert str(path) in str(error.value)
     assert "entry 1 (test-water)" in str(error.value)
     assert "vapor_pressure.t_min" in str(error.value)
+
+
+def test_every_fluid_table_reproduces_the_newton_inverse() -> None:
+    for fluid in load_catalog().fluids.values():
+        low, high = fluid.pressure_limits
+        p = np.geomspace(low, high, 2001)
+        exact = fluid.equation.temperature(p, *fluid.temperature_limits)
+        assert np.max(np.abs(fluid.saturation_temperature(p) - exact)) < 1e-8, fluid.id

@@ -6,7 +6,7 @@ import numpy as np
 import pytest
 
 from service.physics import water
-from service.physics.correlations import ExtendedAntoine, Wagner
+from service.physics.correlations import ExtendedAntoine, InverseTable, Wagner
 
 # Antoine constants of water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C):
 # A = 8.07131, B = 1730.63, C = 233.426 (the classic handbook set, e.g. Lange's Handbook
@@ -57,3 +57,25 @@ def test_inverse_clamps_to_the_bracket() -> None:
     # Pressures beyond the bracket come back as its nearer end: callers check the range first.
     out = WATER_ANTOINE.temperature(np.array([1.0, 1e9]), 280.0, 370.0)
     np.testing.assert_allclose(out, [280.0, 370.0])
+
+
+@pytest.mark.parametrize("equation", [WATER_ANTOINE, water.SATURATION], ids=["antoine", "wagner"])
+def test_inverse_table_reproduces_newton(equation) -> None:
+    low, high = 274.0, 646.0
+    table = InverseTable(equation, low, high)
+    p = np.geomspace(float(equation.pressure(low)), float(equation.pressure(high)), 200_001)
+    assert np.max(np.abs(table(p) - equation.temperature(p, low, high))) < 1e-9
+    assert table(np.array([1e-9, 1e12])).tolist() == [low, high]
+
+
+def test_wagner_horner_matches_the_plain_sum() -> None:
+    eq = water.SATURATION
+    t = np.linspace(273.16, 647.0, 1001)
+    tau = 1 - t / eq.critical_temperature
+    plain = np.log(eq.critical_pressure) + eq.critical_temperature / t * sum(
+        a * tau**e for a, e in zip(eq.coefficients, eq.exponents, strict=True)
+    )
+    np.testing.assert_allclose(eq.ln_pressure(t), plain, rtol=1e-14, atol=1e-13)
+    odd = Wagner(eq.critical_temperature, eq.critical_pressure, (-7.8, 1.8), (1.0, 1.7))  # not half-integral
+    plain_odd = np.log(eq.critical_pressure) + eq.critical_temperature / t * (-7.8 * tau + 1.8 * tau**1.7)
+    np.testing.assert_allclose(odd.ln_pressure(t), plain_odd, rtol=1e-14)

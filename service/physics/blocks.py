@@ -1,0 +1,40 @@
+"""Evaluate long arrays in cache-sized blocks.
+
+A chain of numpy operations over a million points streams every temporary through main
+memory; over blocks of 16 384 points the temporaries stay in the CPU cache and the chain
+runs several times faster. Results are identical: every element sees the same operations.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable
+from functools import wraps
+
+import numpy as np
+from numpy.typing import ArrayLike, NDArray
+
+BLOCK = 16_384
+"""Points per block: 128 KiB per float64 temporary, inside a typical L2 cache."""
+
+
+def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]]:
+    """Wrap an elementwise function of array arguments so that long inputs run block by block.
+
+    >>> square = blockwise(lambda x: x * x)
+    >>> bool(np.array_equal(square(np.arange(50_000.0)), np.arange(50_000.0) ** 2))
+    True
+    """
+
+    @wraps(func)
+    def wrapper(*args: ArrayLike) -> NDArray[np.float64]:
+        arrays = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in args))
+        if arrays[0].size <= BLOCK:
+            return func(*arrays)
+        shape = arrays[0].shape
+        flat = [a.reshape(-1) for a in arrays]
+        out = np.empty(flat[0].size)
+        for start in range(0, out.size, BLOCK):
+            out[start : start + BLOCK] = func(*(a[start : start + BLOCK] for a in flat))
+        return out.reshape(shape)
+
+    return wrapper
