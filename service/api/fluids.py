@@ -7,6 +7,7 @@ from typing import Any
 from flask import Blueprint, Response, current_app
 from marshmallow import Schema, fields
 
+from service.api.formats import cacheable
 from service.api.operations import query_args
 from service.api.quantities import UnitField, quantity
 from service.api.rules import catalog, resolve_catalog_fluid
@@ -75,10 +76,10 @@ def list_fluids() -> Response:
     loaded = FluidSearchQuery().load(query_args())
     found = catalog().search(loaded["q"]) if loaded.get("q") else list(catalog().fluids.values())
     units = _units(loaded)
-    return current_app.json.response({"count": len(found), "fluids": [summary(f, *units) for f in found]})
+    return cacheable(current_app.json.response({"count": len(found), "fluids": [summary(f, *units) for f in found]}))
 
 
 @blueprint.get("/v1/fluids/<name>")
 def fluid_detail(name: str) -> Response:
     loaded = FluidQuery().load(query_args())
-    return current_app.json.response(detail(resolve_catalog_fluid(name), *_units(loaded)))
+    return cacheable(current_app.json.response(detail(resolve_catalog_fluid(name), *_units(loaded))))

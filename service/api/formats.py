@@ -13,7 +13,10 @@ import io
 from collections.abc import Iterable
 from typing import Any
 
+import numpy as np
 from flask import Response, current_app, request
+
+from service.api.problems import invalid
 
 MEDIA_TYPES = {"json": "application/json", "text": "text/plain", "csv": "text/csv"}
 
@@ -35,6 +38,41 @@ def respond(body: dict[str, Any], fmt: str) -> Response:
     return Response(text, mimetype=MEDIA_TYPES[fmt])
 
 
+CACHE_CONTROL = "public, max-age=3600"
+"""Answers follow from the request and the built-in tables alone: an hour is safe for any cache."""
+
+
+def cacheable(response: Response) -> Response:
+    """Mark a GET answer cacheable with a strong ETag; answer 304 when If-None-Match matches it."""
+    response.add_etag()
+    response.headers["Cache-Control"] = CACHE_CONTROL
+    response.vary.add("Accept")
+    return response.make_conditional(request)
+
+
+def csv_columns(text: str) -> dict[str, dict[str, Any]]:
+    """A CSV body as ``{name: {"value": array, "unit": code or None}}``, parsed in one numpy call.
+
+    The header names the columns, optionally with a unit: ``gauge_pressure [kPa]``.
+    """
+    lines = text.strip().splitlines()
+    if len(lines) < 2:
+        raise invalid("body", "a CSV body has a header row and at least one row of numbers")
+    names = [h.strip() for h in lines[0].split(",")]
+    try:
+        numbers = np.array(",".join(lines[1:]).split(","), dtype=float)
+    except ValueError:
+        raise invalid("body", "every CSV cell below the header must be a number") from None
+    if numbers.size != len(names) * (len(lines) - 1):
+        raise invalid("body", f"every CSV row must have {len(names)} cells, as the header does")
+    table = numbers.reshape(-1, len(names))
+    columns = {}
+    for i, header in enumerate(names):
+        name, _, unit = header.partition("[")
+        columns[name.strip()] = {"value": table[:, i].copy(), "unit": unit.rstrip("] ") or None}
+    return columns
+
+
 def _number(value: float) -> str:
     return repr(float(value))
 
@@ -48,7 +86,7 @@ def as_text(body: dict[str, Any]) -> str:
     lines = []
     for name, value in body.items():
         if _is_quantity(value):
-            numbers = value["value"] if isinstance(value["value"], list) else [value["value"]]
+            numbers = _listed(value["value"])
             lines.append(f"{name}: {' '.join(_number(v) for v in numbers)} {value['unit']}")
         elif name == "warnings":
             lines.extend(f"warning: {w}" for w in value)
@@ -65,7 +103,7 @@ def as_csv(body: dict[str, Any]) -> str:
     for name, value in body.items():
         if _is_quantity(value):
             columns.append((f"{name} [{value['unit']}]", _listed(value["value"])))
-        elif isinstance(value, list | str) and name not in {"warnings", "method", "source", "fluid"}:
+        elif isinstance(value, list | str | np.ndarray) and name not in {"warnings", "method", "source", "fluid"}:
             columns.append((name, _listed(value)))
     rows = max(len(values) for _, values in columns)
     out = io.StringIO()
@@ -77,6 +115,8 @@ def as_csv(body: dict[str, Any]) -> str:
 
 
 def _listed(value: Any) -> list[Any]:
+    if isinstance(value, np.ndarray):
+        return value.tolist()
     return value if isinstance(value, list) else [value]
 
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 from typing import Any
 
+import numpy as np
 import yaml
 from apispec import APISpec
 from apispec.ext.marshmallow import MarshmallowPlugin
@@ -89,6 +90,8 @@ def _rounded(value: Any) -> Any:
     """Examples to 6 significant digits, so the document does not depend on the last bit."""
     if isinstance(value, float):
         return float(f"{value:.6g}") if math.isfinite(value) else value
+    if isinstance(value, np.ndarray):
+        return _rounded(value.tolist())
     if isinstance(value, list):
         return [_rounded(v) for v in value]
     if isinstance(value, dict):
@@ -114,10 +117,24 @@ def _array_example(operation: Operation) -> dict[str, Any]:
     return body
 
 
+_NOT_MODIFIED = {"description": "Not modified: the answer has the ETag sent in If-None-Match."}
+_CSV_BODY = (
+    "A header row naming input quantities, each optionally with its unit (`gauge_pressure [kPa]`), then one "
+    "row of numbers per point. Options and single values go in the query string."
+)
+
+
+def _csv_example(body: dict[str, Any]) -> str:
+    """The array example as a CSV body: its array inputs as columns."""
+    columns = {k: v for k, v in body.items() if isinstance(v, list)}
+    rows = zip(*columns.values(), strict=True)
+    return "\n".join([",".join(columns), *(",".join(map(repr, row)) for row in rows)]) + "\n"
+
+
 def _computing_paths(spec: APISpec, operation: Operation) -> None:
-    get_answer = _rounded(operation.compute(operation.parse(operation.example, operation.query_schema)))
+    get_answer = _rounded(operation.compute(operation.parse(operation.example, "query")))
     array_body = _array_example(operation)
-    post_answer = _rounded(operation.compute(operation.parse(array_body, operation.body_schema)))
+    post_answer = _rounded(operation.compute(operation.parse(array_body, "body")))
     text = {"type": "string"}
     tag = operation.path.split("/")[2]
     common = {"tags": [tag], "summary": operation.summary, "description": operation.description}
@@ -136,6 +153,7 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                             "text/plain": {"schema": text, "example": as_text(get_answer)},
                         },
                     },
+                    "304": _NOT_MODIFIED,
                     **_problem_responses(operation.errors),
                 },
             },
@@ -145,7 +163,13 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                 "parameters": [{"in": "query", "schema": operation.units_schema}],
                 "requestBody": {
                     "required": True,
-                    "content": {"application/json": {"schema": operation.body_schema, "example": array_body}},
+                    "content": {
+                        "application/json": {"schema": operation.body_schema, "example": array_body},
+                        "text/csv": {
+                            "schema": {"type": "string", "description": _CSV_BODY},
+                            "example": _csv_example(array_body),
+                        },
+                    },
                 },
                 "responses": {
                     "200": {
@@ -190,7 +214,7 @@ def build_document() -> dict[str, Any]:
                 "operationId": "listFluids",
                 "summary": "List or search the fluid catalog",
                 "parameters": [{"in": "query", "schema": FluidSearchQuery}],
-                "responses": {"200": _json(schemas.FluidList), **_problem_responses((400,))},
+                "responses": {"200": _json(schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400,))},
             }
         },
     )
@@ -212,7 +236,11 @@ def build_document() -> dict[str, Any]:
                     },
                     {"in": "query", "schema": FluidQuery},
                 ],
-                "responses": {"200": _json(schemas.FluidDetail), **_problem_responses((400, 404))},
+                "responses": {
+                    "200": _json(schemas.FluidDetail),
+                    "304": _NOT_MODIFIED,
+                    **_problem_responses((400, 404)),
+                },
             }
         },
     )

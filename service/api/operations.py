@@ -18,7 +18,7 @@ from marshmallow import Schema, fields, validate
 from numpy.typing import NDArray
 from werkzeug.exceptions import BadRequest
 
-from service.api.formats import chosen_format, respond
+from service.api.formats import cacheable, chosen_format, csv_columns, respond
 from service.api.problems import Problem, invalid
 from service.api.quantities import Quantity, QuantityField, UnitField
 from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
@@ -77,6 +77,7 @@ class Operation:
     query_schema: type[Schema] = field(init=False)
     body_schema: type[Schema] = field(init=False)
     units_schema: type[Schema] = field(init=False)
+    _loaders: dict[str, Schema] = field(init=False, repr=False)
 
     def __post_init__(self) -> None:
         units = {f"{d}_unit": UnitField(d, metadata={"description": UNIT_DESCRIPTIONS[d]}) for d in self.dimensions}
@@ -108,10 +109,12 @@ class Operation:
         self.units_schema = Schema.from_dict(
             name=f"{self.name}Units", fields={**units, "format": _format_field("json", "csv")}
         )
+        # Built once: a schema instance deep-copies its fields, too slow to repeat per request.
+        self._loaders = {"query": self.query_schema(), "body": self.body_schema(), "units": self.units_schema()}
 
-    def parse(self, data: Mapping[str, Any], schema: type[Schema]) -> Inputs:
-        """Load ``data`` with ``schema`` and convert its quantities to broadcast SI arrays."""
-        loaded = schema().load(data)
+    def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:
+        """Load ``data`` as a ``query`` or ``body`` and convert its quantities to broadcast SI arrays."""
+        loaded = self._loaders[kind].load(data)
         units = {d: loaded.pop(f"{d}_unit", None) or resolve_unit(DEFAULT_UNITS[d], d) for d in self.dimensions}
         values: dict[str, NDArray[np.float64]] = {}
         for name, spec in self.inputs.items():
@@ -131,13 +134,35 @@ class Operation:
 
     def view(self) -> Response:
         if request.method == "GET":
-            inputs = self.parse(query_args(), self.query_schema)
+            inputs = self.parse(query_args(), "query")
             fmt = chosen_format(inputs.options.pop("format", None), ("text",))
+            return cacheable(respond(self.compute(inputs), fmt))
+        args = query_args()
+        requested = (
+            self._loaders["units"].load({"format": args.pop("format")}).get("format") if "format" in args else None
+        )
+        if request.mimetype == "text/csv":
+            body = self._csv_body(args)
         else:
-            query = self.units_schema().load(query_args())
-            inputs = self.parse(_json_body(query), self.body_schema)
-            fmt = chosen_format(query.get("format"), ("csv",))
-        return respond(self.compute(inputs), fmt)
+            self._loaders["units"].load(args)
+            body = _json_body(args)
+        return respond(self.compute(self.parse(body, "body")), chosen_format(requested, ("csv",)))
+
+    def _csv_body(self, args: dict[str, str]) -> dict[str, Any]:
+        """A CSV body's columns as quantities; options and single values come from the query string."""
+        columns = csv_columns(request.get_data(as_text=True))
+        for name in columns:
+            if name not in self.inputs:
+                raise invalid(name, f"not an input of this path; columns may be {', '.join(self.inputs)}")
+            if name in args:
+                raise invalid(name, "given both as a column and in the query string")
+        body: dict[str, Any] = dict(args)
+        for name in set(args) & set(self.inputs):
+            try:
+                body[name] = float(args[name])
+            except ValueError:
+                raise invalid(name, "must be a number") from None
+        return body | columns
 
     def register(self, blueprint: Blueprint) -> None:
         """Answer GET and POST on ``blueprint`` and list the operation in the OpenAPI document."""
@@ -171,7 +196,7 @@ def query_args() -> dict[str, str]:
 def _json_body(query: dict[str, Any]) -> dict[str, Any]:
     """The JSON object of a POST, with the units its query string sets."""
     if not request.is_json:
-        raise Problem(415, "POST bodies are JSON: send Content-Type: application/json.")
+        raise Problem(415, "POST bodies are JSON (application/json) or CSV (text/csv).")
     try:
         body = request.get_json()
     except BadRequest:

@@ -21,12 +21,15 @@ class Quantity:
 
 
 def finite_numbers(value: Any) -> NDArray[np.float64]:
-    """A number or a flat list of numbers as a float array; ValidationError otherwise."""
-    if isinstance(value, bool) or not isinstance(value, int | float | list):
+    """A number or a flat list (or float array, from CSV) of numbers as a float array; ValidationError otherwise."""
+    if isinstance(value, np.ndarray):
+        array = value
+    elif isinstance(value, bool) or not isinstance(value, int | float | list):
         raise ValidationError("must be a number or an array of numbers")
-    if isinstance(value, list) and not set(map(type, value)) <= {int, float}:
+    elif isinstance(value, list) and not set(map(type, value)) <= {int, float}:
         raise ValidationError("an array must hold numbers only")
-    array = np.asarray(value, dtype=float)
+    else:
+        array = np.asarray(value, dtype=float)
     if not np.isfinite(array).all():
         raise ValidationError("numbers must be finite")
     return array
@@ -63,7 +66,7 @@ class QuantityField(fields.Field):
         if "value" not in value or set(value) - {"value", "unit"}:
             raise ValidationError('a quantity object has "value" and an optional "unit"')
         unit = value.get("unit")
-        if unit is None:
+        if unit is None:  # a CSV column without a unit in its header
             return Quantity(finite_numbers(value["value"]))
         if not isinstance(unit, str):
             raise ValidationError("unit must be a string")
@@ -92,8 +95,9 @@ def difference(value_kelvin: NDArray | float, unit: Unit) -> dict[str, Any]:
     return {"value": _plain(np.asarray(value_kelvin) / unit.scale), "unit": "K" if unit.scale == 1.0 else "degR"}
 
 
-def _plain(array: NDArray) -> float | list[float]:
-    return array.tolist() if array.ndim else float(array)
+def _plain(array: NDArray) -> float | NDArray:
+    """A float, or the array itself: orjson writes float arrays directly, with no list in between."""
+    return np.ascontiguousarray(array) if array.ndim else float(array)
 
 
 def format_value(value_si: float, unit: Unit) -> str:

@@ -1,0 +1,111 @@
+"""The array path: broadcasting, limits, exact equality with single answers, CSV, caching."""
+
+import csv
+import io
+
+import pytest
+
+# One example per computing path: a scalar query, and the quantity to turn into an array.
+PATHS = [
+    ("/v1/boiling-point", {"elevation": 1420.0}, "gauge_pressure", [-60.0, 0.0, 950.0]),
+    ("/v1/vapor-pressure", {"fluid": "toluene"}, "temperature", [20.0, 60.0, 110.0]),
+    ("/v1/elevation", {}, "pressure", [101.325, 85.0, 30.0]),
+    ("/v1/atmosphere", {}, "elevation", [-400.0, 1420.0, 30000.0]),
+    ("/v1/saturation-margin", {"barometric_pressure": 85.4}, "temperature", [20.0, 95.3, 99.0]),
+    ("/v1/npsh-available", {"elevation": 1420.0, "static_head": 2.0}, "temperature", [20.0, 60.0, 90.0]),
+]
+
+
+def quantities(body: dict) -> dict:
+    return {k: v["value"] for k, v in body.items() if isinstance(v, dict) and "value" in v}
+
+
+@pytest.mark.parametrize(("path", "fixed", "name", "values"), PATHS)
+def test_array_answers_equal_single_answers_exactly(client, path, fixed, name, values) -> None:
+    many = client.post(path, json={**fixed, name: values}).get_json()
+    for i, v in enumerate(values):
+        query = "&".join(f"{k}={x}" for k, x in {**fixed, name: v}.items())
+        one = client.get(f"{path}?{query}").get_json()
+        for field, value in quantities(one).items():
+            answer = quantities(many)[field]  # a setting such as tolerance stays a single number
+            assert (answer[i] if isinstance(answer, list) else answer) == value, (field, i)  # same floats
+
+
+def test_broadcasting_and_empty_arrays(client) -> None:
+    body = client.post(
+        "/v1/boiling-point", json={"gauge_pressure": [0, 100], "barometric_pressure": [85, 86]}
+    ).get_json()
+    assert body["pressure"]["value"] == [85.0, 186.0]
+    empty = client.post("/v1/boiling-point", json={"pressure": []})
+    assert empty.status_code == 200
+    assert empty.get_json()["boiling_point"]["value"] == []
+
+
+def test_mismatched_lengths(client) -> None:
+    r = client.post("/v1/boiling-point", json={"gauge_pressure": [0, 1, 2], "barometric_pressure": [85, 86]})
+    assert r.status_code == 400
+    assert r.get_json()["errors"] == {"gauge_pressure": ["length 3"], "barometric_pressure": ["length 2"]}
+
+
+def test_too_many_points_names_the_limit(client, app) -> None:
+    limit = app.config["MAX_POINTS"]
+    r = client.post("/v1/atmosphere", json={"elevation": [0.0] * (limit + 1)})
+    assert r.status_code == 413 and f"the limit is {limit}" in r.get_json()["detail"]
+    assert client.post("/v1/atmosphere", json={"elevation": [0.0] * limit}).status_code == 200
+
+
+def test_body_size_limit(app) -> None:
+    small = app.test_client()
+    app.config["MAX_CONTENT_LENGTH"], before = 1000, app.config["MAX_CONTENT_LENGTH"]
+    try:
+        r = small.post("/v1/atmosphere", json={"elevation": [1000.0] * 500})
+        assert r.status_code == 413 and r.mimetype == "application/problem+json"
+    finally:
+        app.config["MAX_CONTENT_LENGTH"] = before
+
+
+def test_mixed_valid_and_invalid_points_refuse_the_request_with_indexes(client) -> None:
+    r = client.post("/v1/vapor-pressure", json={"temperature": [20, -30, 50, 400]})
+    assert r.status_code == 422
+    messages = r.get_json()["errors"]["temperature"]
+    assert messages[0].startswith("index 1: ") and messages[1].startswith("index 3: ")
+
+
+def test_csv_round_trip(client) -> None:
+    text = "gauge_pressure [bar]\n-0.6\n0\n9.5\n"
+    r = client.post("/v1/boiling-point?elevation=1420&format=csv", data=text, content_type="text/csv")
+    assert r.status_code == 200 and r.mimetype == "text/csv"
+    rows = list(csv.DictReader(io.StringIO(r.get_data(as_text=True))))
+    json_answer = client.post(
+        "/v1/boiling-point", json={"gauge_pressure": {"value": [-0.6, 0, 9.5], "unit": "bar"}, "elevation": 1420}
+    ).get_json()
+    assert [float(row["boiling_point [degC]"]) for row in rows] == json_answer["boiling_point"]["value"]
+    assert [float(row["pressure [kPa]"]) for row in rows] == json_answer["pressure"]["value"]
+
+
+def test_csv_body_with_query_options_answers_json(client) -> None:
+    text = "temperature,static_head\n20,1.5\n60,2.5\n"
+    r = client.post("/v1/npsh-available?fluid=water&pressure=101.325", data=text, content_type="text/csv")
+    assert r.mimetype == "application/json"
+    assert len(r.get_json()["npsh_available"]["value"]) == 2
+
+
+@pytest.mark.parametrize(
+    "text",
+    ["temperature\n", "temperature\nhot\n", "temperature,static_head\n1\n", "colour\n1\n", "\n"],
+)
+def test_bad_csv_bodies(client, text: str) -> None:
+    r = client.post("/v1/vapor-pressure", data=text, content_type="text/csv")
+    assert r.status_code == 400, r.get_json()
+
+
+def test_etag_and_not_modified(client) -> None:
+    first = client.get("/v1/boiling-point?pressure=101.325")
+    etag = first.headers["ETag"]
+    assert not etag.startswith("W/") and "max-age" in first.headers["Cache-Control"]
+    again = client.get("/v1/boiling-point?pressure=101.325", headers={"If-None-Match": etag})
+    assert again.status_code == 304 and again.data == b""
+    other = client.get("/v1/boiling-point?pressure=101.3", headers={"If-None-Match": etag})
+    assert other.status_code == 200 and other.headers["ETag"] != etag
+    text = client.get("/v1/boiling-point?pressure=101.325&format=text")
+    assert text.headers["ETag"] != etag  # another representation, another tag
