@@ -8,6 +8,7 @@ from typing import Any
 from flask import Flask
 
 from service.api import register_api
+from service.api.formats import AnswerCache
 from service.api.jsonio import OrjsonProvider
 from service.config import settings
 from service.fluids.catalog import load_catalog
@@ -21,5 +22,6 @@ def create_app(config: Mapping[str, Any] | None = None) -> Flask:
     app.json = OrjsonProvider(app)
     # A bad operator file raises CatalogError here, naming file, entry and field: start-up stops.
     app.extensions["catalog"] = load_catalog(extra_files=app.config["EXTRA_CATALOGS"])
+    app.extensions["answers"] = AnswerCache(app.config["ANSWER_CACHE_SIZE"])
     register_api(app)
     return app

@@ -14,10 +14,12 @@ VERSION = metadata.version("boiling-point-service")
 DEFAULTS: dict[str, Any] = {
     "MAX_POINTS": 100_000,
     "MAX_CONTENT_LENGTH": 16 * 1024 * 1024,
+    "ANSWER_CACHE_SIZE": 4096,
 }
 _ENVIRONMENT = {
     "MAX_POINTS": "BOILING_MAX_POINTS",
     "MAX_CONTENT_LENGTH": "BOILING_MAX_BODY_BYTES",
+    "ANSWER_CACHE_SIZE": "BOILING_ANSWER_CACHE_SIZE",
 }
 
 

@@ -9,8 +9,10 @@ in Python's shortest round-trip form, so both parse back to the JSON values exac
 from __future__ import annotations
 
 import csv
+import hashlib
 import io
-from collections.abc import Iterable
+from collections import OrderedDict
+from collections.abc import Callable, Iterable
 from typing import Any
 
 import numpy as np
@@ -44,10 +46,45 @@ CACHE_CONTROL = "public, max-age=3600"
 
 def cacheable(response: Response) -> Response:
     """Mark a GET answer cacheable with a strong ETag; answer 304 when If-None-Match matches it."""
-    response.add_etag()
-    response.headers["Cache-Control"] = CACHE_CONTROL
-    response.vary.add("Accept")
-    return response.make_conditional(request)
+    return _tagged(response.get_data(), response.mimetype, _etag(response.get_data()))
+
+
+def _etag(body: bytes) -> str:
+    return hashlib.blake2b(body, digest_size=16).hexdigest()
+
+
+def _tagged(body: bytes, mimetype: str, etag: str) -> Response:
+    headers = {"ETag": f'"{etag}"', "Cache-Control": CACHE_CONTROL, "Vary": "Accept"}
+    if etag in request.if_none_match:
+        return Response(status=304, headers=headers)
+    return Response(body, mimetype=mimetype, headers=headers)
+
+
+class AnswerCache:
+    """The last answers to identical GETs, per worker: an answer depends only on the request.
+
+    Keyed by path, query string and Accept header; holds ``size`` answers, least recently
+    used out first. Refusals are not kept: they raise before anything is stored. Every
+    answer, cached or not, carries its ETag and Cache-Control (:func:`cacheable`).
+    """
+
+    def __init__(self, size: int) -> None:
+        self.size = size
+        self._answers: OrderedDict[tuple[str, bytes, str], tuple[bytes, str, str]] = OrderedDict()
+
+    def get_or_compute(self, compute: Callable[[], Response]) -> Response:
+        key = (request.path, request.query_string, request.headers.get("Accept", ""))
+        hit = self._answers.get(key)
+        if hit is None:
+            response = compute()
+            hit = (response.get_data(), response.mimetype, _etag(response.get_data()))
+            if self.size:
+                self._answers[key] = hit
+                if len(self._answers) > self.size:
+                    self._answers.popitem(last=False)
+        else:
+            self._answers.move_to_end(key)
+        return _tagged(*hit)
 
 
 def csv_columns(text: str) -> dict[str, dict[str, Any]]:

@@ -18,7 +18,7 @@ from marshmallow import Schema, fields, validate
 from numpy.typing import NDArray
 from werkzeug.exceptions import BadRequest
 
-from service.api.formats import cacheable, chosen_format, csv_columns, respond
+from service.api.formats import chosen_format, csv_columns, respond
 from service.api.problems import Problem, invalid
 from service.api.quantities import Quantity, QuantityField, UnitField
 from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
@@ -134,9 +134,7 @@ class Operation:
 
     def view(self) -> Response:
         if request.method == "GET":
-            inputs = self.parse(query_args(), "query")
-            fmt = chosen_format(inputs.options.pop("format", None), ("text",))
-            return cacheable(respond(self.compute(inputs), fmt))
+            return current_app.extensions["answers"].get_or_compute(self._answer_get)
         args = query_args()
         requested = (
             self._loaders["units"].load({"format": args.pop("format")}).get("format") if "format" in args else None
@@ -147,6 +145,10 @@ class Operation:
             self._loaders["units"].load(args)
             body = _json_body(args)
         return respond(self.compute(self.parse(body, "body")), chosen_format(requested, ("csv",)))
+
+    def _answer_get(self) -> Response:
+        inputs = self.parse(query_args(), "query")
+        return respond(self.compute(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
 
     def _csv_body(self, args: dict[str, str]) -> dict[str, Any]:
         """A CSV body's columns as quantities; options and single values come from the query string."""

@@ -69,12 +69,13 @@ def refuse_outside(
     ``below`` and ``above`` describe the limits, with ``{limit}`` where the limit's value in
     ``unit`` goes; the messages give each bad value, with its index in an array request.
     """
-    lows = np.broadcast_to(-np.inf if low is None else low, values.shape)
-    highs = np.broadcast_to(np.inf if high is None else high, values.shape)
-    too_low, too_high = values < lows, values > highs
+    too_low = values < low if low is not None else np.zeros(values.shape, dtype=bool)
+    too_high = values > high if high is not None else np.zeros(values.shape, dtype=bool)
     bad = too_low | too_high
     if not bad.any():
         return
+    lows = np.broadcast_to(-np.inf if low is None else low, values.shape)
+    highs = np.broadcast_to(np.inf if high is None else high, values.shape)
     messages = []
     for index in np.flatnonzero(bad)[:_MAX_LISTED]:
         value = format_value(float(values.flat[index]), unit)

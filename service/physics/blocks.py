@@ -27,9 +27,10 @@ def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]
 
     @wraps(func)
     def wrapper(*args: ArrayLike) -> NDArray[np.float64]:
-        arrays = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in args))
-        if arrays[0].size <= BLOCK:
-            return func(*arrays)
+        arrays = [np.asarray(a, dtype=float) for a in args]
+        if max(a.size for a in arrays) <= BLOCK:
+            return func(*arrays)  # small: numpy broadcasts inside, nothing to split
+        arrays = np.broadcast_arrays(*arrays)
         shape = arrays[0].shape
         flat = [a.reshape(-1) for a in arrays]
         out = np.empty(flat[0].size)

@@ -5,6 +5,8 @@ import io
 
 import pytest
 
+from service import create_app
+
 # One example per computing path: a scalar query, and the quantity to turn into an array.
 PATHS = [
     ("/v1/boiling-point", {"elevation": 1420.0}, "gauge_pressure", [-60.0, 0.0, 950.0]),
@@ -109,3 +111,14 @@ def test_etag_and_not_modified(client) -> None:
     assert other.status_code == 200 and other.headers["ETag"] != etag
     text = client.get("/v1/boiling-point?pressure=101.325&format=text")
     assert text.headers["ETag"] != etag  # another representation, another tag
+
+
+def test_answer_cache_gives_the_same_answer_and_stays_bounded() -> None:
+    cached, uncached = create_app({"ANSWER_CACHE_SIZE": 2}).test_client(), create_app({"ANSWER_CACHE_SIZE": 0})
+    fresh = uncached.test_client()
+    for q in ("pressure=50", "pressure=60", "pressure=70", "pressure=50", "pressure=50&format=text"):
+        a, b = cached.get(f"/v1/boiling-point?{q}"), fresh.get(f"/v1/boiling-point?{q}")
+        assert a.data == b.data and a.headers["ETag"] == b.headers["ETag"] and a.mimetype == b.mimetype
+    assert len(cached.application.extensions["answers"]._answers) == 2
+    assert cached.get("/v1/boiling-point?pressure=0.1").status_code == 422  # refusals are not kept
+    assert len(cached.application.extensions["answers"]._answers) == 2
