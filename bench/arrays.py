@@ -1,0 +1,74 @@
+"""Array benchmark: points per second for POSTs of 1e3, 1e4 and 1e5 points, JSON and CSV.
+
+Each figure is end to end as a client sees it: encode the request body, send it over a
+kept-alive loopback connection to `make serve`'s gunicorn, read the answer and decode it.
+
+    python bench/arrays.py      (or: make bench-arrays)
+"""
+
+from __future__ import annotations
+
+import http.client
+import statistics
+import sys
+import time
+from pathlib import Path
+from urllib.parse import urlparse
+
+import numpy as np
+import orjson
+
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+
+from bench.common import free_port, gunicorn, machine, write_section
+
+SIZES = (1_000, 10_000, 100_000)
+REPEATS = 15
+
+
+def post_json(conn: http.client.HTTPConnection, pressures: np.ndarray) -> np.ndarray:
+    body = orjson.dumps({"pressure": pressures}, option=orjson.OPT_SERIALIZE_NUMPY)
+    conn.request("POST", "/v1/boiling-point", body, {"Content-Type": "application/json"})
+    response = conn.getresponse()
+    answer = orjson.loads(response.read())
+    assert response.status == 200, answer
+    return np.asarray(answer["boiling_point"]["value"])
+
+
+def post_csv(conn: http.client.HTTPConnection, pressures: np.ndarray) -> np.ndarray:
+    body = "pressure\n" + "\n".join(map(repr, pressures.tolist()))
+    conn.request("POST", "/v1/boiling-point?format=csv", body.encode(), {"Content-Type": "text/csv"})
+    response = conn.getresponse()
+    text = response.read().decode()
+    assert response.status == 200, text
+    table = np.array(text.split("\n", 1)[1].replace("\n", ",").rstrip(",").split(","), dtype=float)
+    return table.reshape(-1, 3)[:, 1]
+
+
+def main() -> None:
+    rows = ["| body | points | median s | best s | points/s (median) |", "| --- | ---: | ---: | ---: | ---: |"]
+    with gunicorn(free_port()) as base:
+        url = urlparse(base)
+        conn = http.client.HTTPConnection(url.hostname, url.port, timeout=60)
+        for name, post in (("JSON", post_json), ("CSV", post_csv)):
+            for n in SIZES:
+                pressures = np.geomspace(1.0, 20_000.0, n)  # kPa
+                times = []
+                for _ in range(REPEATS):
+                    t0 = time.perf_counter()
+                    result = post(conn, pressures)
+                    times.append(time.perf_counter() - t0)
+                assert result.size == n
+                median = statistics.median(times)
+                rows.append(f"| {name} | {n:,} | {median:.4f} | {min(times):.4f} | {n / median:,.0f} |")
+        conn.close()
+    rows += [
+        "",
+        f"Water boiling points, kPa in and degC out; {REPEATS} requests per row on one kept-alive "
+        "connection; client side numpy and orjson (JSON) or str.split (CSV).",
+    ]
+    write_section("arrays", f"Measured {machine()}.\n\n" + "\n".join(rows))
+
+
+if __name__ == "__main__":
+    main()
