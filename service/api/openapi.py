@@ -117,6 +117,8 @@ def _array_example(operation: Operation) -> dict[str, Any]:
     return body
 
 
+_GUARDED = (401, 414)
+"""Any /v1 path: 401 when an API key is configured and missing, 414 for an over-long query string."""
 _NOT_MODIFIED = {"description": "Not modified: the answer has the ETag sent in If-None-Match."}
 _CSV_BODY = (
     "A header row naming input quantities, each optionally with its unit (`gauge_pressure [kPa]`), then one "
@@ -154,7 +156,7 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                         },
                     },
                     "304": _NOT_MODIFIED,
-                    **_problem_responses(operation.errors),
+                    **_problem_responses((*operation.errors, *_GUARDED)),
                 },
             },
             "post": {
@@ -179,7 +181,7 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                             "text/csv": {"schema": text, "example": as_csv(post_answer)},
                         },
                     },
-                    **_problem_responses((*operation.errors, 413, 415)),
+                    **_problem_responses((*operation.errors, *_GUARDED, 413, 415)),
                 },
             },
         },
@@ -199,6 +201,16 @@ def build_document() -> dict[str, Any]:
         plugins=[MarshmallowPlugin()],
         info={"description": _paragraphs(DESCRIPTION), "license": {"name": "MIT", "identifier": "MIT"}},
         servers=[{"url": "/", "description": "this service"}],
+        components={
+            "securitySchemes": {
+                "apiKey": {
+                    "type": "http",
+                    "scheme": "bearer",
+                    "description": "Only when the operator sets BOILING_API_KEY; then every /v1 path needs it.",
+                }
+            }
+        },
+        security=[{}, {"apiKey": []}],
     )
     spec.plugins[0].converter.add_attribute_function(_quantity_property)  # type: ignore[attr-defined]
     spec.components.schema("Problem", schema=schemas.Problem)
@@ -214,7 +226,11 @@ def build_document() -> dict[str, Any]:
                 "operationId": "listFluids",
                 "summary": "List or search the fluid catalog",
                 "parameters": [{"in": "query", "schema": FluidSearchQuery}],
-                "responses": {"200": _json(schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400,))},
+                "responses": {
+                    "200": _json(schemas.FluidList),
+                    "304": _NOT_MODIFIED,
+                    **_problem_responses((400, *_GUARDED)),
+                },
             }
         },
     )
@@ -239,7 +255,7 @@ def build_document() -> dict[str, Any]:
                 "responses": {
                     "200": _json(schemas.FluidDetail),
                     "304": _NOT_MODIFIED,
-                    **_problem_responses((400, 404)),
+                    **_problem_responses((400, 404, *_GUARDED)),
                 },
             }
         },
@@ -256,10 +272,28 @@ def build_document() -> dict[str, Any]:
                     "tags": ["service"],
                     "operationId": operation_id,
                     "summary": summary,
+                    "security": [],
                     "responses": {"200": _json(schema), **_problem_responses(errors)},
                 }
             },
         )
+    spec.path(
+        path="/metrics",
+        operations={
+            "get": {
+                "tags": ["service"],
+                "operationId": "metrics",
+                "security": [],
+                "summary": "Prometheus metrics: requests by path and status, latency, points computed (all workers)",
+                "responses": {
+                    "200": {
+                        "description": "Prometheus text exposition format.",
+                        "content": {"text/plain": {"schema": {"type": "string"}}},
+                    }
+                },
+            }
+        },
+    )
     spec.path(
         path="/openapi.json",
         operations={
@@ -267,6 +301,7 @@ def build_document() -> dict[str, Any]:
                 "tags": ["service"],
                 "operationId": "openapi",
                 "summary": "This document, as JSON",
+                "security": [],
                 "responses": {
                     "200": {
                         "description": "The OpenAPI document.",

@@ -13,7 +13,7 @@ from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
-from flask import Blueprint, Response, current_app, request
+from flask import Blueprint, Response, current_app, g, request
 from marshmallow import Schema, fields, validate
 from numpy.typing import NDArray
 from werkzeug.exceptions import BadRequest
@@ -130,6 +130,7 @@ class Operation:
         if size > limit:
             raise Problem(413, f"{size} points in one request; the limit is {limit}.")
         values = {k: np.broadcast_to(v, shape) for k, v in values.items()}
+        g.points = size  # for the points-computed metric
         return Inputs(values, units, loaded, shape)
 
     def view(self) -> Response:

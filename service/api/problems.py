@@ -5,7 +5,7 @@ from __future__ import annotations
 import logging
 from collections.abc import Mapping, Sequence
 
-from flask import Flask, Response, current_app
+from flask import Flask, Response, current_app, g
 from marshmallow import ValidationError
 from werkzeug.exceptions import HTTPException
 
@@ -14,6 +14,7 @@ _LOG = logging.getLogger(__name__)
 
 TITLES = {
     400: "Invalid input",
+    401: "API key required",
     404: "Not found",
     405: "Method not allowed",
     406: "Not acceptable",
@@ -26,6 +27,7 @@ TITLES = {
 }
 _SLUGS = {
     400: "invalid-input",
+    401: "unauthorized",
     404: "not-found",
     405: "method-not-allowed",
     406: "not-acceptable",
@@ -46,11 +48,18 @@ def problem_type(status: int) -> str:
 class Problem(Exception):
     """An error answered as ``application/problem+json``."""
 
-    def __init__(self, status: int, detail: str, errors: Mapping[str, Sequence[str]] | None = None) -> None:
+    def __init__(
+        self,
+        status: int,
+        detail: str,
+        errors: Mapping[str, Sequence[str]] | None = None,
+        headers: Mapping[str, str] | None = None,
+    ) -> None:
         super().__init__(detail)
         self.status = status
         self.detail = detail
         self.errors = {k: list(v) for k, v in (errors or {}).items()}
+        self.headers = dict(headers or {})
 
 
 def invalid(field: str, message: str) -> Problem:
@@ -70,6 +79,7 @@ def problem_response(problem: Problem) -> Response:
     response = current_app.json.response(body)
     response.status_code = problem.status
     response.mimetype = PROBLEM_TYPE
+    response.headers.update(problem.headers)
     return response
 
 
@@ -112,5 +122,5 @@ def register_problem_handlers(app: Flask) -> None:
 
     @app.errorhandler(Exception)
     def _unexpected(error: Exception) -> Response:
-        _LOG.exception("unhandled error")
+        _LOG.exception("unhandled error", extra={"fields": {"request_id": g.get("request_id", "-")}})
         return problem_response(Problem(500, "The service could not compute this answer; the error was logged."))

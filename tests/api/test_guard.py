@@ -1,0 +1,109 @@
+"""Request ids, limits, API key, CORS, security headers, metrics and the JSON log."""
+
+import json
+import logging
+
+import pytest
+
+from service import create_app
+from service.api.guard import JsonLogFormatter, json_depth_exceeds
+from tests.conftest import ContractClient
+
+
+@pytest.fixture
+def keyed(openapi_document, monkeypatch) -> ContractClient:
+    monkeypatch.setenv("BOILING_API_KEY", "kessock-fell-2026")
+    monkeypatch.setenv("BOILING_CORS_ORIGINS", "https://dash.kessock.example")
+    return ContractClient(create_app(), openapi_document)
+
+
+def test_request_id_is_echoed_or_made(client) -> None:
+    assert client.get("/healthz", headers={"X-Request-ID": "tag-TI-4711"}).headers["X-Request-ID"] == "tag-TI-4711"
+    made = client.get("/healthz").headers["X-Request-ID"]
+    assert len(made) == 32
+    hostile = client.get("/healthz", headers={"X-Request-ID": "x" * 500}).headers["X-Request-ID"]
+    assert hostile != "x" * 500  # not echoed: too long, or not plain characters
+
+
+def test_security_headers_everywhere(client) -> None:
+    for response in (client.get("/v1/boiling-point?pressure=100"), client.get("/v1/boiling-point?pressure=-1"),
+                     client.get("/nowhere")):
+        assert response.headers["X-Content-Type-Options"] == "nosniff"
+        assert "default-src 'none'" in response.headers["Content-Security-Policy"]
+
+
+def test_cors_is_off_by_default(client) -> None:
+    r = client.get("/v1/boiling-point?pressure=100", headers={"Origin": "https://evil.example"})
+    assert "Access-Control-Allow-Origin" not in r.headers
+
+
+def test_cors_for_listed_origins(keyed) -> None:
+    auth = {"Authorization": "Bearer kessock-fell-2026"}
+    ok = keyed.get("/v1/boiling-point?pressure=100", headers={"Origin": "https://dash.kessock.example", **auth})
+    assert ok.headers["Access-Control-Allow-Origin"] == "https://dash.kessock.example"
+    other = keyed.get("/v1/boiling-point?pressure=100", headers={"Origin": "https://evil.example", **auth})
+    assert "Access-Control-Allow-Origin" not in other.headers
+    preflight = keyed.client.options("/v1/boiling-point", headers={
+        "Origin": "https://dash.kessock.example", "Access-Control-Request-Method": "POST"})
+    assert preflight.status_code == 200 and "POST" in preflight.headers["Access-Control-Allow-Methods"]
+
+
+def test_api_key(keyed) -> None:
+    missing = keyed.get("/v1/boiling-point?pressure=100")
+    assert missing.status_code == 401 and missing.headers["WWW-Authenticate"].startswith("Bearer")
+    assert keyed.get("/v1/fluids", headers={"Authorization": "Bearer wrong"}).status_code == 401
+    good = keyed.get("/v1/boiling-point?pressure=100", headers={"Authorization": "Bearer kessock-fell-2026"})
+    assert good.status_code == 200
+    for open_path in ("/healthz", "/readyz", "/metrics", "/openapi.json", "/"):
+        assert keyed.get(open_path).status_code == 200, open_path
+
+
+def test_long_query_strings_get_414(client, app) -> None:
+    r = client.get("/v1/boiling-point?pressure=100&fluid=" + "w" * app.config["MAX_QUERY_BYTES"])
+    assert r.status_code == 414 and r.mimetype == "application/problem+json"
+
+
+def test_deep_json_gets_400(client) -> None:
+    r = client.post("/v1/boiling-point", data='{"pressure": ' + "[" * 40 + "1" + "]" * 40 + "}",
+                    content_type="application/json")
+    assert r.status_code == 400 and "nests deeper" in r.get_json()["detail"]
+
+
+def test_json_depth_ignores_brackets_in_strings() -> None:
+    assert not json_depth_exceeds(b'{"fluid": {"name": "[[[[[[[[[[[[[[[[[[[[x\\"[[[[\\\\"}}', 3)
+    assert json_depth_exceeds(b'{"a": [[[[{"b": 1}]]]]}', 4)
+    assert not json_depth_exceeds(b'{"pressure": [' + b"1," * 1000 + b"1]}", 2)
+
+
+def test_metrics_count_requests_and_points(client) -> None:
+    client.post("/v1/vapor-pressure", json={"temperature": [20, 30, 40]})
+    client.get("/v1/vapor-pressure?temperature=-100")
+    text = client.get("/metrics").get_data(as_text=True)
+    assert 'boiling_requests_total{method="POST",path="/v1/vapor-pressure",status="200"}' in text
+    assert 'boiling_requests_total{method="GET",path="/v1/vapor-pressure",status="422"}' in text
+    assert 'boiling_points_computed_total{path="/v1/vapor-pressure"}' in text
+    assert "boiling_request_duration_seconds_bucket" in text
+
+
+def test_access_log_is_json_with_the_request_id(client) -> None:
+    records: list[logging.LogRecord] = []
+    handler = logging.Handler()
+    handler.emit = records.append
+    logging.getLogger("service.access").addHandler(handler)
+    try:
+        client.get("/v1/boiling-point?pressure=100", headers={"X-Request-ID": "trace-42"})
+    finally:
+        logging.getLogger("service.access").removeHandler(handler)
+    line = json.loads(JsonLogFormatter().format(records[-1]))
+    assert line["request_id"] == "trace-42" and line["status"] == 200 and line["path"] == "/v1/boiling-point"
+    assert line["level"] == "info" and "duration_ms" in line
+
+
+def test_errors_hold_no_internals(client, app, monkeypatch) -> None:
+    def explode(*_: object) -> None:
+        raise RuntimeError("/site-packages/secret.py line 3")
+
+    monkeypatch.setattr("service.api.saturation.local_pressure", explode)
+    r = client.client.get("/v1/boiling-point?pressure=100.5")  # a 500 is no documented answer
+    assert r.status_code == 500 and r.mimetype == "application/problem+json"
+    assert "site-packages" not in r.get_data(as_text=True) and "Traceback" not in r.get_data(as_text=True)
