@@ -6,19 +6,21 @@ from openapi_spec_validator import validate
 from service.api.openapi import document_yaml
 from tests.conftest import ROOT
 
+SERVICE_PATHS = ("/healthz", "/readyz", "/metrics", "/openapi.json")
+V1_PATHS = (
+    "/v1/boiling-point",
+    "/v1/vapor-pressure",
+    "/v1/elevation",
+    "/v1/atmosphere",
+    "/v1/saturation-margin",
+    "/v1/npsh-available",
+    "/v1/fluids",
+)
+
 
 def test_index_lists_the_paths(client) -> None:
     body = client.get("/").get_json()
-    for path in (
-        "/v1/boiling-point",
-        "/v1/vapor-pressure",
-        "/v1/elevation",
-        "/v1/atmosphere",
-        "/v1/fluids",
-        "/healthz",
-        "/readyz",
-        "/openapi.json",
-    ):
+    for path in (*V1_PATHS, *SERVICE_PATHS):
         assert path in body["paths"]
 
 
@@ -45,18 +47,7 @@ def test_served_document_is_the_committed_one(client, openapi_document) -> None:
 
 def test_every_path_and_unit_is_documented(openapi_document) -> None:
     text = yaml.safe_dump(openapi_document)
-    for path in (
-        "/v1/boiling-point",
-        "/v1/vapor-pressure",
-        "/v1/elevation",
-        "/v1/atmosphere",
-        "/v1/fluids",
-        "/v1/fluids/{name}",
-        "/healthz",
-        "/readyz",
-        "/openapi.json",
-        "/",
-    ):
+    for path in (*V1_PATHS, "/v1/fluids/{name}", *SERVICE_PATHS, "/"):
         assert path in openapi_document["paths"]
     for code in (
         "Pa",
