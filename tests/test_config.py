@@ -14,13 +14,15 @@ def test_defaults() -> None:
 
 
 def test_overrides() -> None:
-    out = settings({
-        "BOILING_MAX_POINTS": "500",
-        "BOILING_EXTRA_CATALOGS": f"/a.toml{os.pathsep}/b.toml",
-        "BOILING_CORS_ORIGINS": "https://plant.example, https://app.example",
-        "BOILING_API_KEY": "s3cret",
-        "BOILING_MAX_QUERY_BYTES": "2048",
-    })
+    out = settings(
+        {
+            "BOILING_MAX_POINTS": "500",
+            "BOILING_EXTRA_CATALOGS": f"/a.toml{os.pathsep}/b.toml",
+            "BOILING_CORS_ORIGINS": "https://plant.example, https://app.example",
+            "BOILING_API_KEY": "s3cret",
+            "BOILING_MAX_QUERY_BYTES": "2048",
+        }
+    )
     assert out["MAX_POINTS"] == 500 and out["MAX_QUERY_BYTES"] == 2048 and out["API_KEY"] == "s3cret"
     assert out["EXTRA_CATALOGS"] == [Path("/a.toml"), Path("/b.toml")]
     assert out["CORS_ORIGINS"] == ["https://plant.example", "https://app.example"]

@@ -158,8 +158,16 @@ def test_the_variable_scanner_finds_each_form() -> None:
 
 def test_the_scanner_sees_the_known_settings() -> None:
     assert {
-        "HOST", "PORT", "WEB_CONCURRENCY", "GUNICORN_TIMEOUT", "GUNICORN_GRACEFUL_TIMEOUT", "LOG_LEVEL",
-        "BOILING_MAX_POINTS", "BOILING_MAX_BODY_BYTES", "BOILING_EXTRA_CATALOGS", "BOILING_ANSWER_CACHE_SIZE",
+        "HOST",
+        "PORT",
+        "WEB_CONCURRENCY",
+        "GUNICORN_TIMEOUT",
+        "GUNICORN_GRACEFUL_TIMEOUT",
+        "LOG_LEVEL",
+        "BOILING_MAX_POINTS",
+        "BOILING_MAX_BODY_BYTES",
+        "BOILING_EXTRA_CATALOGS",
+        "BOILING_ANSWER_CACHE_SIZE",
     } <= variables_in_code()
 
 
@@ -197,8 +205,9 @@ def get_routes(app: Flask) -> set[str]:
     return {rule.rule for rule in app.url_map.iter_rules() if "GET" in (rule.methods or set())}
 
 
-def test_probe_and_scrape_paths_are_routes_of_the_app(app: Flask, deployment: dict[str, Any],
-                                                      container: dict[str, Any]) -> None:
+def test_probe_and_scrape_paths_are_routes_of_the_app(
+    app: Flask, deployment: dict[str, Any], container: dict[str, Any]
+) -> None:
     assert container["livenessProbe"]["httpGet"]["path"] == "/healthz"
     assert container["readinessProbe"]["httpGet"]["path"] == "/readyz"
     routes = get_routes(app)
@@ -216,8 +225,9 @@ def test_probe_and_scrape_paths_are_routes_of_the_app(app: Flask, deployment: di
 # --- (b) ports --------------------------------------------------------------------------------------------
 
 
-def test_ports_agree(objects: dict[str, dict[str, Any]], container: dict[str, Any],
-                     env: dict[str, dict[str, Any]]) -> None:
+def test_ports_agree(
+    objects: dict[str, dict[str, Any]], container: dict[str, Any], env: dict[str, dict[str, Any]]
+) -> None:
     (port,) = container["ports"]
     assert port["name"] == "http"
     number = port["containerPort"]
@@ -262,7 +272,9 @@ def test_the_hpa_scales_the_deployment(objects: dict[str, dict[str, Any]]) -> No
     assert hpa["apiVersion"] == "autoscaling/v2"
     target = hpa["spec"]["scaleTargetRef"]
     assert (target["apiVersion"], target["kind"], target["name"]) == (
-        deployment["apiVersion"], deployment["kind"], deployment["metadata"]["name"],
+        deployment["apiVersion"],
+        deployment["kind"],
+        deployment["metadata"]["name"],
     )
     spec = hpa["spec"]
     assert spec["minReplicas"] == 2
@@ -294,8 +306,9 @@ def test_runs_as_the_dockerfile_user(deployment: dict[str, Any], container: dict
     assert own["capabilities"]["drop"] == ["ALL"]
 
 
-def test_writable_paths_are_empty_dirs(deployment: dict[str, Any], container: dict[str, Any],
-                                       env: dict[str, dict[str, Any]]) -> None:
+def test_writable_paths_are_empty_dirs(
+    deployment: dict[str, Any], container: dict[str, Any], env: dict[str, dict[str, Any]]
+) -> None:
     volumes = {v["name"]: v for v in deployment["spec"]["template"]["spec"]["volumes"]}
     mounts = {m["mountPath"]: m["name"] for m in container["volumeMounts"]}
     assert all("emptyDir" in volumes[name] for name in mounts.values())
@@ -342,16 +355,20 @@ def test_requests_do_not_exceed_limits(container: dict[str, Any]) -> None:
 def test_in_memory_volumes_fit_under_the_memory_limit(deployment: dict[str, Any], container: dict[str, Any]) -> None:
     # A medium: Memory emptyDir counts against the container's memory limit; each needs a sizeLimit,
     # and together they must leave the workers at least the request's worth of headroom.
-    in_memory = [v["emptyDir"] for v in deployment["spec"]["template"]["spec"]["volumes"]
-                 if v.get("emptyDir", {}).get("medium") == "Memory"]
+    in_memory = [
+        v["emptyDir"]
+        for v in deployment["spec"]["template"]["spec"]["volumes"]
+        if v.get("emptyDir", {}).get("medium") == "Memory"
+    ]
     assert all("sizeLimit" in v for v in in_memory)
     total = sum((quantity(v["sizeLimit"]) for v in in_memory), Decimal(0))
     memory = container["resources"]
     assert total <= quantity(memory["limits"]["memory"]) - quantity(memory["requests"]["memory"])
 
 
-def test_grace_period_covers_prestop_and_gunicorn_drain(deployment: dict[str, Any], container: dict[str, Any],
-                                                        env: dict[str, dict[str, Any]]) -> None:
+def test_grace_period_covers_prestop_and_gunicorn_drain(
+    deployment: dict[str, Any], container: dict[str, Any], env: dict[str, dict[str, Any]]
+) -> None:
     if "GUNICORN_GRACEFUL_TIMEOUT" in env:
         graceful = int(env["GUNICORN_GRACEFUL_TIMEOUT"]["value"])
     else:

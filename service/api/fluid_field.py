@@ -26,6 +26,12 @@ _FORM_KEYS = {
 _NUMBER = {"allow_nan": False}
 
 
+def _above_zero(value: float) -> None:
+    """Refuse zero and below (a plain function, so the document states exclusiveMinimum itself)."""
+    if value <= 0:
+        raise ValidationError("Must be greater than 0.")
+
+
 class EquationFluid(Schema):
     """A vapor-pressure equation as a handbook prints it."""
 
@@ -91,13 +97,19 @@ class PointFluid(Schema):
     boiling_point = fields.Float(required=True, **_NUMBER, metadata={"description": "In `temperature_unit`."})
     pressure = fields.Float(
         **_NUMBER,
-        validate=validate.Range(min=0, min_inclusive=False),
-        metadata={"description": "Pressure of the known boiling point, in `pressure_unit` (default 1 atm)."},
+        validate=_above_zero,
+        metadata={
+            "description": "Pressure of the known boiling point, in `pressure_unit` (default 1 atm).",
+            "exclusiveMinimum": 0,
+        },
     )
     enthalpy_of_vaporization = fields.Float(
         **_NUMBER,
-        validate=validate.Range(min=0, min_inclusive=False, max=1000),
-        metadata={"description": "In kJ/mol. Without it, Trouton's rule estimates it and the answer says so."},
+        validate=[_above_zero, validate.Range(max=1000)],
+        metadata={
+            "description": "In kJ/mol. Without it, Trouton's rule estimates it and the answer says so.",
+            "exclusiveMinimum": 0,
+        },
     )
     temperature_unit = UnitField("temperature", metadata={"description": "Default: the request's."})
     pressure_unit = UnitField("pressure", metadata={"description": "Default: the request's."})

@@ -149,7 +149,7 @@ def as_csv(body: dict[str, Any]) -> str:
         if _is_quantity(value):
             headers.append(f"{name} [{value['unit']}]")
             columns.append(np.atleast_1d(np.asarray(value["value"], dtype=float)))
-        elif isinstance(value, list | str) and name not in {"warnings", "method", "source", "fluid"}:
+        elif isinstance(value, list | str) and name not in {"warnings", "method", "source", "fluid", "model"}:
             headers.append(name)
             columns.append([value] if isinstance(value, str) else value)
     out = io.StringIO()

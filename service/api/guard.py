@@ -7,6 +7,7 @@ microseconds per request.
 
 from __future__ import annotations
 
+import contextlib
 import hmac
 import logging
 import os
@@ -19,7 +20,15 @@ import numpy as np
 import orjson
 from flask import Flask, Response, g, request
 from prometheus_client import CONTENT_TYPE_LATEST as METRICS_TYPE
-from prometheus_client import CollectorRegistry, Counter, Histogram, generate_latest, multiprocess
+from prometheus_client import (
+    PLATFORM_COLLECTOR,
+    REGISTRY,
+    CollectorRegistry,
+    Counter,
+    Histogram,
+    generate_latest,
+    multiprocess,
+)
 
 from service.api.problems import Problem
 
@@ -46,6 +55,9 @@ LATENCY = Histogram(
 POINTS = Counter("boiling_points_computed_total", "Points computed by the computing paths.", ["path"])
 
 _ACCESS = logging.getLogger("service.access")
+# The platform collector would publish the Python version to anyone who can read /metrics.
+with contextlib.suppress(KeyError):
+    REGISTRY.unregister(PLATFORM_COLLECTOR)
 
 
 class JsonLogFormatter(logging.Formatter):
@@ -165,7 +177,7 @@ def install(app: Flask) -> None:
         if multiprocess_dir():
             registry = CollectorRegistry()
             multiprocess.MultiProcessCollector(registry)
-        return Response(generate_latest(registry) if registry else generate_latest(), mimetype=METRICS_TYPE)
+        return Response(generate_latest(registry) if registry else generate_latest(), content_type=METRICS_TYPE)
 
 
 def multiprocess_dir() -> str | None:

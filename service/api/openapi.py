@@ -126,11 +126,12 @@ _CSV_BODY = (
 )
 
 
-def _csv_example(body: dict[str, Any]) -> str:
-    """The array example as a CSV body: its array inputs as columns."""
-    columns = {k: v for k, v in body.items() if isinstance(v, list)}
-    rows = zip(*columns.values(), strict=True)
-    return "\n".join([",".join(columns), *(",".join(map(repr, row)) for row in rows)]) + "\n"
+def _csv_example(operation: Operation, body: dict[str, Any]) -> str:
+    """The array example as a CSV body: every input quantity a column, single values repeated."""
+    columns = {k: v for k, v in body.items() if k in operation.inputs}
+    length = max(len(v) for v in columns.values() if isinstance(v, list))
+    cells = [v if isinstance(v, list) else [v] * length for v in columns.values()]
+    return "\n".join([",".join(columns), *(",".join(map(repr, row)) for row in zip(*cells, strict=True))]) + "\n"
 
 
 def _computing_paths(spec: APISpec, operation: Operation) -> None:
@@ -169,7 +170,7 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                         "application/json": {"schema": operation.body_schema, "example": array_body},
                         "text/csv": {
                             "schema": {"type": "string", "description": _CSV_BODY},
-                            "example": _csv_example(array_body),
+                            "example": _csv_example(operation, array_body),
                         },
                     },
                 },

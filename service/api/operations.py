@@ -123,7 +123,14 @@ class Operation:
             raw = loaded.pop(name)
             given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
             unit = given.unit or units[spec.dimension]
-            values[name] = given.value * unit.scale + unit.offset
+            with np.errstate(over="ignore"):
+                values[name] = si = given.value * unit.scale + unit.offset
+            if not np.isfinite(si).all():
+                raise Problem(
+                    422,
+                    f"{name}: a value is too large to be a {spec.dimension} in SI units.",
+                    {name: ["beyond the range of double-precision numbers once converted to SI"]},
+                )
         shape = _broadcast_shape(values)
         limit = current_app.config["MAX_POINTS"]
         size = int(np.prod(shape)) if shape else 1

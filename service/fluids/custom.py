@@ -78,6 +78,8 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
     >>> round(float(toluene.saturation_temperature(10_000.0)) - 273.15, 1)  # reference EOS: 45.3 degC
     41.7
     """
+    if not (math.isfinite(temperature) and temperature > 0 and math.isfinite(pressure) and pressure > 0):
+        raise ValueError("the boiling point must lie above absolute zero, at a positive pressure")
     notes = [_UNCHECKED]
     method, source = "Clausius-Clapeyron equation through one boiling point", _CLAUSIUS
     if enthalpy is None:
@@ -93,7 +95,10 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
             notes.append("Trouton's rule holds at the normal boiling point; this boiling point is not at 1 atm.")
     slope = enthalpy / GAS_CONSTANT
     equation = ExtendedAntoine(a=math.log(pressure) + slope / temperature, b=-slope)
-    lowest, highest = (1.0 / (1.0 / temperature - math.log(f) / slope) for f in POINT_RANGE)
+    with np.errstate(all="ignore"):  # an absurd point may overflow: refused just below
+        lowest, highest = (float(1.0 / (1.0 / np.float64(temperature) - math.log(f) / slope)) for f in POINT_RANGE)
+    if not all(math.isfinite(v) for v in (equation.a, equation.b, lowest, highest)) or not 0 < lowest < highest:
+        raise ValueError("this boiling point and enthalpy give no usable Clausius-Clapeyron equation")
     return Fluid(
         id=name,
         name=name,

@@ -141,3 +141,12 @@ def test_wagner_definition_reproduces_the_builtin_water(client) -> None:
     mine = client.post("/v1/boiling-point", json={"fluid": wagner, "pressure": [1, 100, 1000]}).get_json()
     builtin = client.post("/v1/boiling-point", json={"pressure": [1, 100, 1000]}).get_json()
     assert mine["boiling_point"]["value"] == pytest.approx(builtin["boiling_point"]["value"], abs=1e-9)
+
+
+@pytest.mark.parametrize(("point", "unit"), [(0.0, "K"), (-5.0, "K"), (-300.0, "degC"), (1e308, "K")])
+def test_absurd_boiling_points_are_refused(client, point: float, unit: str) -> None:
+    # Found by the fuzz test: these once divided by zero or overflowed.
+    r = client.post(
+        "/v1/vapor-pressure", json={"fluid": {"boiling_point": point, "temperature_unit": unit}, "temperature": 50}
+    )
+    assert r.status_code == 400 and "fluid" in r.get_json()["errors"]

@@ -109,3 +109,16 @@ def test_vapor_pressure_refusals(client) -> None:
     problem(client.get("/v1/vapor-pressure?temperature=374"), 422)
     problem(client.get("/v1/vapor-pressure"), 400)
     problem(client.get("/v1/vapor-pressure?temperature=50&fluid=xyzzy"), 404)
+
+
+@pytest.mark.parametrize(
+    "query",
+    [
+        "elevation=760&sea_level_pressure=-1.7976931348623155e308",
+        "temperature=20&static_head=1&gauge_pressure=-1.7976931348623157e308&elevation=0",
+    ],
+)
+def test_values_that_overflow_in_si_are_refused(client, query: str) -> None:
+    path = "/v1/atmosphere" if "sea_level" in query else "/v1/npsh-available"
+    body = problem(client.get(f"{path}?{query}"), 422)  # found by the fuzz test
+    assert "too large" in body["detail"]

@@ -26,8 +26,11 @@ def test_request_id_is_echoed_or_made(client) -> None:
 
 
 def test_security_headers_everywhere(client) -> None:
-    for response in (client.get("/v1/boiling-point?pressure=100"), client.get("/v1/boiling-point?pressure=-1"),
-                     client.get("/nowhere")):
+    for response in (
+        client.get("/v1/boiling-point?pressure=100"),
+        client.get("/v1/boiling-point?pressure=-1"),
+        client.get("/nowhere"),
+    ):
         assert response.headers["X-Content-Type-Options"] == "nosniff"
         assert "default-src 'none'" in response.headers["Content-Security-Policy"]
 
@@ -43,8 +46,9 @@ def test_cors_for_listed_origins(keyed) -> None:
     assert ok.headers["Access-Control-Allow-Origin"] == "https://dash.kessock.example"
     other = keyed.get("/v1/boiling-point?pressure=100", headers={"Origin": "https://evil.example", **auth})
     assert "Access-Control-Allow-Origin" not in other.headers
-    preflight = keyed.client.options("/v1/boiling-point", headers={
-        "Origin": "https://dash.kessock.example", "Access-Control-Request-Method": "POST"})
+    preflight = keyed.client.options(
+        "/v1/boiling-point", headers={"Origin": "https://dash.kessock.example", "Access-Control-Request-Method": "POST"}
+    )
     assert preflight.status_code == 200 and "POST" in preflight.headers["Access-Control-Allow-Methods"]
 
 
@@ -64,8 +68,9 @@ def test_long_query_strings_get_414(client, app) -> None:
 
 
 def test_deep_json_gets_400(client) -> None:
-    r = client.post("/v1/boiling-point", data='{"pressure": ' + "[" * 40 + "1" + "]" * 40 + "}",
-                    content_type="application/json")
+    r = client.post(
+        "/v1/boiling-point", data='{"pressure": ' + "[" * 40 + "1" + "]" * 40 + "}", content_type="application/json"
+    )
     assert r.status_code == 400 and "nests deeper" in r.get_json()["detail"]
 
 
@@ -107,3 +112,9 @@ def test_errors_hold_no_internals(client, app, monkeypatch) -> None:
     r = client.client.get("/v1/boiling-point?pressure=100.5")  # a 500 is no documented answer
     assert r.status_code == 500 and r.mimetype == "application/problem+json"
     assert "site-packages" not in r.get_data(as_text=True) and "Traceback" not in r.get_data(as_text=True)
+
+
+def test_metrics_content_type_and_no_python_version(client) -> None:
+    r = client.get("/metrics")
+    assert r.headers["Content-Type"].count("charset") == 1  # found by the fuzz test
+    assert "python_info" not in r.get_data(as_text=True)
