@@ -219,99 +219,70 @@ def build_document() -> dict[str, Any]:
     spec.components.schema("PointFluid", schema=PointFluid)
     for operation in OPERATIONS:
         _computing_paths(spec, operation)
-    spec.path(
-        path="/v1/fluids",
-        operations={
-            "get": {
-                "tags": ["fluids"],
-                "operationId": "listFluids",
-                "summary": "List or search the fluid catalog",
-                "parameters": [{"in": "query", "schema": FluidSearchQuery}],
-                "responses": {
-                    "200": _json(schemas.FluidList),
-                    "304": _NOT_MODIFIED,
-                    **_problem_responses((400, *_GUARDED)),
-                },
-            }
-        },
-    )
-    spec.path(
-        path="/v1/fluids/{name}",
-        operations={
-            "get": {
-                "tags": ["fluids"],
-                "operationId": "getFluid",
-                "summary": "One fluid: identity, fixed points, equation and source",
-                "parameters": [
-                    {
-                        "in": "path",
-                        "name": "name",
-                        "required": True,
-                        "schema": {"type": "string"},
-                        "description": "Catalog id, CAS registry number or alias.",
-                        "example": "water",
-                    },
-                    {"in": "query", "schema": FluidQuery},
-                ],
-                "responses": {
-                    "200": _json(schemas.FluidDetail),
-                    "304": _NOT_MODIFIED,
-                    **_problem_responses((400, 404, *_GUARDED)),
-                },
-            }
-        },
-    )
-    for path, operation_id, summary, schema, errors in (
-        ("/", "index", "The paths this service answers", schemas.Index, ()),
-        ("/healthz", "healthz", "Liveness: the process answers", schemas.Health, ()),
-        ("/readyz", "readyz", "Readiness: the catalog is loaded", schemas.Health, (503,)),
-    ):
-        spec.path(
-            path=path,
-            operations={
-                "get": {
-                    "tags": ["service"],
-                    "operationId": operation_id,
-                    "summary": summary,
-                    "security": [],
-                    "responses": {"200": _json(schema), **_problem_responses(errors)},
+    fluid_name = {
+        "in": "path",
+        "name": "name",
+        "required": True,
+        "schema": {"type": "string"},
+        "description": "Catalog id, CAS registry number or alias.",
+        "example": "water",
+    }
+    text = {"schema": {"type": "string"}}
+    for path, operation_id, summary, parameters, responses in (
+        (
+            "/v1/fluids",
+            "listFluids",
+            "List or search the fluid catalog",
+            [{"in": "query", "schema": FluidSearchQuery}],
+            {"200": _json(schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400, *_GUARDED))},
+        ),
+        (
+            "/v1/fluids/{name}",
+            "getFluid",
+            "One fluid: identity, fixed points, equation and source",
+            [fluid_name, {"in": "query", "schema": FluidQuery}],
+            {"200": _json(schemas.FluidDetail), "304": _NOT_MODIFIED, **_problem_responses((400, 404, *_GUARDED))},
+        ),
+        ("/", "index", "The paths this service answers", None, {"200": _json(schemas.Index)}),
+        ("/healthz", "healthz", "Liveness: the process answers", None, {"200": _json(schemas.Health)}),
+        (
+            "/readyz",
+            "readyz",
+            "Readiness: the catalog is loaded",
+            None,
+            {"200": _json(schemas.Health), **_problem_responses((503,))},
+        ),
+        (
+            "/metrics",
+            "metrics",
+            "Prometheus metrics: requests by path and status, latency, points computed (all workers)",
+            None,
+            {"200": {"description": "Prometheus text format.", "content": {"text/plain": text}}},
+        ),
+        (
+            "/openapi.json",
+            "openapi",
+            "This document, as JSON",
+            None,
+            {
+                "200": {
+                    "description": "The OpenAPI document.",
+                    "content": {"application/json": {"schema": {"type": "object"}}},
                 }
             },
-        )
-    spec.path(
-        path="/metrics",
-        operations={
-            "get": {
-                "tags": ["service"],
-                "operationId": "metrics",
-                "security": [],
-                "summary": "Prometheus metrics: requests by path and status, latency, points computed (all workers)",
-                "responses": {
-                    "200": {
-                        "description": "Prometheus text exposition format.",
-                        "content": {"text/plain": {"schema": {"type": "string"}}},
-                    }
-                },
-            }
-        },
-    )
-    spec.path(
-        path="/openapi.json",
-        operations={
-            "get": {
-                "tags": ["service"],
-                "operationId": "openapi",
-                "summary": "This document, as JSON",
-                "security": [],
-                "responses": {
-                    "200": {
-                        "description": "The OpenAPI document.",
-                        "content": {"application/json": {"schema": {"type": "object"}}},
-                    }
-                },
-            }
-        },
-    )
+        ),
+    ):
+        catalog_path = path.startswith("/v1/")
+        operation: dict[str, Any] = {
+            "tags": ["fluids" if catalog_path else "service"],
+            "operationId": operation_id,
+            "summary": summary,
+        }
+        if parameters:
+            operation["parameters"] = parameters
+        if not catalog_path:
+            operation["security"] = []  # probes, scraper and documentation need no key
+        spec.path(path=path, operations={"get": {**operation, "responses": responses}})
     document = spec.to_dict()
     document["components"]["schemas"]["Problem"]["properties"]["type"]["examples"] = [problem_type(422)]
     return document

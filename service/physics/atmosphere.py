@@ -105,8 +105,17 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
     return EARTH_RADIUS * h / (EARTH_RADIUS - h)
 
 
-def _layer_of_height(h: NDArray) -> NDArray[np.intp]:
-    """Index of the layer holding each geopotential height: how many upper bases lie at or below it."""
+def _layer_of_height(h: NDArray) -> NDArray[np.intp] | int:
+    """Index of the layer holding each geopotential height: how many upper bases lie at or below it.
+
+    When every height lies in one layer (a site's elevations, a troposphere-only array) the
+    answer is that layer's index alone, and the formulas use its constants without a lookup
+    per point.
+    """
+    if h.size:
+        low, high = np.searchsorted(_BASE_HEIGHT[1:], (h.min(), h.max()), side="right")
+        if low == high:
+            return int(low)
     index = np.zeros(h.shape, dtype=np.intp)
     for base in _BASE_HEIGHT[1:]:
         index += h >= base
@@ -164,6 +173,25 @@ def density_at_elevation(
     return pressure_at_elevation(elevation, sea_level_pressure) * MOLAR_MASS_AIR / (GAS_CONSTANT * t_m)
 
 
+def _layer_of_pressure(p: NDArray) -> NDArray[np.intp] | int:
+    """Index of the layer holding each standard pressure [Pa]; one index when all share a layer."""
+    if p.size:
+        low, high = np.searchsorted(-_BASE_P[1:], (-p.max(), -p.min()), side="right")
+        if low == high:
+            return int(low)
+    return np.clip(np.searchsorted(-_BASE_P, -p, side="right") - 1, 0, _BASE_P.size - 1)
+
+
+def _rise_linear(ln_ratio: NDArray, base_t: NDArray | float, lapse: NDArray | float) -> NDArray:
+    """H - Hb [m'] in a layer of lapse rate L != 0: Tb (exp(-L ln(P/Pb) / k) - 1) / L."""
+    return np.expm1(ln_ratio * (-lapse / _K)) * (base_t / lapse)
+
+
+def _rise_isothermal(ln_ratio: NDArray, base_t: NDArray | float) -> NDArray:
+    """H - Hb [m'] in an isothermal layer: -Tb ln(P/Pb) / k."""
+    return ln_ratio * (-base_t / _K)
+
+
 @blockwise
 def elevation_at_pressure(
     pressure: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
@@ -176,12 +204,14 @@ def elevation_at_pressure(
     >>> round(float(elevation_at_pressure(22_700.0)))
     11000
     """
-    p = np.asarray(pressure, dtype=float) * SEA_LEVEL_PRESSURE / np.asarray(sea_level_pressure, dtype=float)
-    i = np.clip(np.searchsorted(-_BASE_P, -p, side="right") - 1, 0, _BASE_P.size - 1)
-    ln_ratio = np.log(p / _BASE_P[i])
+    p = np.asarray(pressure, dtype=float) * (SEA_LEVEL_PRESSURE / np.asarray(sea_level_pressure, dtype=float))
+    i = _layer_of_pressure(p)
+    ln_ratio = np.log(p * (1.0 / _BASE_P[i]))
     base_t = _BASE_T[i]
-    safe_lapse = _SAFE_LAPSE[i]
-    dh = np.where(_LINEAR[i], base_t * np.expm1(-safe_lapse * ln_ratio / _K) / safe_lapse, -base_t * ln_ratio / _K)
+    if isinstance(i, int):  # one layer: only its branch of eq. (33a) or (33b)
+        dh = _rise_linear(ln_ratio, base_t, _LAPSE[i]) if _LINEAR[i] else _rise_isothermal(ln_ratio, base_t)
+    else:  # the same operations point by point, so both ways agree to the bit
+        dh = np.where(_LINEAR[i], _rise_linear(ln_ratio, base_t, _SAFE_LAPSE[i]), _rise_isothermal(ln_ratio, base_t))
     return geometric_elevation(_BASE_HEIGHT[i] + dh)
 
 

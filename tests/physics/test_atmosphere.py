@@ -84,3 +84,19 @@ def test_common_practice_checks() -> None:
     # and roughly a third of sea-level pressure on the summit of Everest (8,849 m).
     assert atm.pressure_at_elevation(1000.0) / 101_325 == pytest.approx(0.887, abs=0.005)
     assert atm.pressure_at_elevation(8849.0) / 101_325 == pytest.approx(0.31, abs=0.01)
+
+
+def test_one_layer_shortcut_agrees_to_the_bit() -> None:
+    # Points all in one layer take its constants at once; mixed with another layer they are
+    # looked up point by point. Both must give the same floats.
+    z = np.linspace(100.0, 10_000.0, 50)
+    mixed_z = np.concatenate((z, [30_000.0]))
+    np.testing.assert_array_equal(atm.pressure_at_elevation(mixed_z)[:-1], atm.pressure_at_elevation(z))
+    np.testing.assert_array_equal(atm.temperature_at_elevation(mixed_z)[:-1], atm.temperature_at_elevation(z))
+    p = atm.pressure_at_elevation(z)
+    mixed_p = np.concatenate((p, [1000.0]))
+    np.testing.assert_array_equal(atm.elevation_at_pressure(mixed_p)[:-1], atm.elevation_at_pressure(p))
+    for layer_z in (15_000.0, 25_000.0, 50_000.0, 60_000.0, 80_000.0):  # each layer alone, then mixed
+        alone = atm.elevation_at_pressure(atm.pressure_at_elevation(layer_z))
+        together = atm.elevation_at_pressure(np.array([float(atm.pressure_at_elevation(layer_z)), 101_325.0]))[0]
+        assert alone == together, layer_z
