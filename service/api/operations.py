@@ -8,6 +8,7 @@ SI numpy arrays broadcast to one shape, ready for one vectorised call into the p
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass, field
 from typing import Any
@@ -23,6 +24,7 @@ from service.api.problems import Problem, invalid
 from service.api.quantities import Quantity, QuantityField, UnitField
 from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
 
+_DEFAULT_UNITS = {d: resolve_unit(code, d) for d, code in DEFAULT_UNITS.items()}
 UNIT_DESCRIPTIONS = {
     "pressure": "Unit of every pressure in the request and the answer.",
     "temperature": "Unit of every temperature in the request and the answer.",
@@ -115,28 +117,29 @@ class Operation:
     def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:
         """Load ``data`` as a ``query`` or ``body`` and convert its quantities to broadcast SI arrays."""
         loaded = self._loaders[kind].load(data)
-        units = {d: loaded.pop(f"{d}_unit", None) or resolve_unit(DEFAULT_UNITS[d], d) for d in self.dimensions}
+        units = {d: loaded.pop(f"{d}_unit", None) or _DEFAULT_UNITS[d] for d in self.dimensions}
         values: dict[str, NDArray[np.float64]] = {}
-        for name, spec in self.inputs.items():
-            if name not in loaded:
-                continue
-            raw = loaded.pop(name)
-            given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
-            unit = given.unit or units[spec.dimension]
-            with np.errstate(over="ignore"):
+        with np.errstate(over="ignore"):  # an overflow shows as a non-finite value, refused below
+            for name, spec in self.inputs.items():
+                if name not in loaded:
+                    continue
+                raw = loaded.pop(name)
+                given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
+                unit = given.unit or units[spec.dimension]
                 values[name] = si = given.value * unit.scale + unit.offset
-            if not np.isfinite(si).all():
-                raise Problem(
-                    422,
-                    f"{name}: a value is too large to be a {spec.dimension} in SI units.",
-                    {name: ["beyond the range of double-precision numbers once converted to SI"]},
-                )
+                if not np.isfinite(si).all():
+                    raise Problem(
+                        422,
+                        f"{name}: a value is too large to be a {spec.dimension} in SI units.",
+                        {name: ["beyond the range of double-precision numbers once converted to SI"]},
+                    )
         shape = _broadcast_shape(values)
         limit = current_app.config["MAX_POINTS"]
-        size = int(np.prod(shape)) if shape else 1
+        size = math.prod(shape)
         if size > limit:
             raise Problem(413, f"{size} points in one request; the limit is {limit}.")
-        values = {k: np.broadcast_to(v, shape) for k, v in values.items()}
+        if shape:  # single values need no broadcasting
+            values = {k: np.broadcast_to(v, shape) for k, v in values.items()}
         g.points = size  # for the points-computed metric
         return Inputs(values, units, loaded, shape)
 
@@ -182,6 +185,8 @@ class Operation:
 
 def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
     shapes = {name: v.shape for name, v in values.items()}
+    if not any(shapes.values()):
+        return ()
     try:
         shape = np.broadcast_shapes(*shapes.values())
     except ValueError:

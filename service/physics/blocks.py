@@ -17,25 +17,29 @@ BLOCK = 16_384
 """Points per block: 128 KiB per float64 temporary, inside a typical L2 cache."""
 
 
-def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]]:
-    """Wrap an elementwise function of array arguments so that long inputs run block by block.
+def in_blocks(func: Callable[..., NDArray], *args: ArrayLike) -> NDArray[np.float64]:
+    """``func(*args)`` for an elementwise ``func``, run block by block when the arrays are long.
 
-    >>> square = blockwise(lambda x: x * x)
-    >>> bool(np.array_equal(square(np.arange(50_000.0)), np.arange(50_000.0) ** 2))
+    >>> bool(np.array_equal(in_blocks(np.square, np.arange(50_000.0)), np.arange(50_000.0) ** 2))
     True
     """
+    arrays = [np.asarray(a, dtype=float) for a in args]
+    if max(a.size for a in arrays) <= BLOCK:
+        return func(*arrays)  # small: numpy broadcasts inside, nothing to split
+    arrays = np.broadcast_arrays(*arrays)
+    shape = arrays[0].shape
+    flat = [a.reshape(-1) for a in arrays]
+    out = np.empty(flat[0].size)
+    for start in range(0, out.size, BLOCK):
+        out[start : start + BLOCK] = func(*(a[start : start + BLOCK] for a in flat))
+    return out.reshape(shape)
+
+
+def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]]:
+    """Decorate an elementwise function of array arguments so that long inputs run block by block."""
 
     @wraps(func)
     def wrapper(*args: ArrayLike) -> NDArray[np.float64]:
-        arrays = [np.asarray(a, dtype=float) for a in args]
-        if max(a.size for a in arrays) <= BLOCK:
-            return func(*arrays)  # small: numpy broadcasts inside, nothing to split
-        arrays = np.broadcast_arrays(*arrays)
-        shape = arrays[0].shape
-        flat = [a.reshape(-1) for a in arrays]
-        out = np.empty(flat[0].size)
-        for start in range(0, out.size, BLOCK):
-            out[start : start + BLOCK] = func(*(a[start : start + BLOCK] for a in flat))
-        return out.reshape(shape)
+        return in_blocks(func, *args)
 
     return wrapper

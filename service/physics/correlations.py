@@ -18,7 +18,7 @@ from functools import cached_property
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.blocks import blockwise
+from service.physics.blocks import in_blocks
 
 _MAX_ITERATIONS = 60
 _RELATIVE_TOLERANCE = 1e-14
@@ -42,16 +42,18 @@ class VaporPressureEquation(ABC):
 
     def pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Saturation pressure [Pa] at ``temperature`` [K]."""
-        return blockwise(lambda t: np.exp(self.ln_pressure(t)))(temperature)
+        return in_blocks(self._pressure, temperature)
 
     def slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """dp/dT along the saturation curve [Pa/K] at ``temperature`` [K]."""
+        return in_blocks(self._slope, temperature)
 
-        def dp_dt(t: NDArray) -> NDArray:
-            ln_p, d_ln_p = self.ln_pressure_and_slope(t)
-            return np.exp(ln_p) * d_ln_p
+    def _pressure(self, temperature: NDArray) -> NDArray:
+        return np.exp(self.ln_pressure(temperature))
 
-        return blockwise(dp_dt)(temperature)
+    def _slope(self, temperature: NDArray) -> NDArray:
+        ln_p, d_ln_p = self.ln_pressure_and_slope(temperature)
+        return np.exp(ln_p) * d_ln_p
 
     def initial_temperature(self, ln_p: NDArray, low: float, high: float) -> NDArray:
         """A first guess of T(p) [K]: the Clausius-Clapeyron chord between ``low`` and ``high``."""
@@ -115,7 +117,7 @@ class InverseTable:
 
     def __call__(self, pressure: ArrayLike) -> NDArray[np.float64]:
         """Saturation temperature [K] at ``pressure`` [Pa]; pressures beyond the ends give the ends."""
-        return blockwise(self._evaluate)(pressure)
+        return in_blocks(self._evaluate, pressure)
 
     def _evaluate(self, pressure: NDArray) -> NDArray:
         s = np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step
