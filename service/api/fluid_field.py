@@ -52,7 +52,9 @@ class EquationFluid(Schema):
     E = fields.Float(**_NUMBER)
     log_base = fields.Raw(metadata={"description": 'antoine: 10 or "e".', "enum": [10, "e"]})
     coefficients = fields.List(fields.Float(**_NUMBER), validate=validate.Length(min=1, max=8))
-    exponents = fields.List(fields.Float(**_NUMBER), validate=validate.Length(min=1, max=8))
+    exponents = fields.List(
+        fields.Float(**_NUMBER, validate=validate.Range(min=0.5, max=50)), validate=validate.Length(min=1, max=8)
+    )
     critical_temperature = fields.Float(**_NUMBER, metadata={"description": "In `temperature_unit`."})
     critical_pressure = fields.Float(**_NUMBER, metadata={"description": "In `pressure_unit`."})
     t_min = fields.Float(required=True, **_NUMBER, metadata={"description": "Lower end of the stated range."})
@@ -137,7 +139,7 @@ def resolve_fluid(value: str | dict[str, Any], units: dict[str, Unit]) -> Fluid:
     p_unit = value.get("pressure_unit") or units["pressure"]
 
     def kelvin(v: float) -> float:
-        return v * t_unit.scale + t_unit.offset
+        return float(t_unit.to_si(v))
 
     try:
         if value["kind"] == "PointFluid":

@@ -56,7 +56,7 @@ def _etag(body: bytes) -> str:
 
 def _tagged(body: bytes, mimetype: str, etag: str) -> Response:
     headers = {"ETag": f'"{etag}"', "Cache-Control": CACHE_CONTROL, "Vary": "Accept"}
-    if etag in request.if_none_match:
+    if request.if_none_match.contains_weak(etag):  # If-None-Match compares weakly (RFC 9110)
         return Response(status=304, headers=headers)
     return Response(body, mimetype=mimetype, headers=headers)
 
@@ -97,6 +97,9 @@ def csv_columns(text: str) -> dict[str, dict[str, Any]]:
     if len(lines) < 2:
         raise invalid("body", "a CSV body has a header row and at least one row of numbers")
     names = [h.strip() for h in lines[0].split(",")]
+    bare = [n.partition("[")[0].strip() for n in names]
+    if len(set(bare)) != len(bare):
+        raise invalid("body", "a CSV header names each column once")
     try:  # orjson reads the cells as one JSON array of numbers: strict and fast
         cells = orjson.loads("[" + ",".join(lines[1:]) + "]")
     except orjson.JSONDecodeError:
@@ -160,8 +163,8 @@ def as_csv(body: dict[str, Any]) -> str:
         text = orjson.dumps(table, option=orjson.OPT_SERIALIZE_NUMPY).decode()
         out.write(text[2:-2].replace("],[", "\n") + "\n" if table.size else "")
         return out.getvalue()
-    rows = max(len(c) for c in columns)
     cells = [_cells(c) for c in columns]
+    rows = max((len(c) for c in cells if len(c) != 1), default=1)  # single values repeat down the column
     cells = [c * rows if len(c) == 1 else c for c in cells]
     out.write("".join(line + "\n" for line in map(",".join, zip(*cells, strict=True))))
     return out.getvalue()

@@ -126,7 +126,7 @@ class Operation:
                 raw = loaded.pop(name)
                 given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
                 unit = given.unit or units[spec.dimension]
-                values[name] = si = given.value * unit.scale + unit.offset
+                values[name] = si = unit.to_si(given.value)
                 if not np.isfinite(si).all():
                     raise Problem(
                         422,
@@ -144,7 +144,7 @@ class Operation:
         return Inputs(values, units, loaded, shape)
 
     def view(self) -> Response:
-        if request.method == "GET":
+        if request.method in ("GET", "HEAD"):
             return current_app.extensions["answers"].get_or_compute(self._answer_get)
         args = query_args()
         requested = (
@@ -155,11 +155,23 @@ class Operation:
         else:
             self._loaders["units"].load(args)
             body = _json_body(args)
-        return respond(self.compute(self.parse(body, "body")), chosen_format(requested, ("csv",)))
+        return respond(self._computed(self.parse(body, "body")), chosen_format(requested, ("csv",)))
 
     def _answer_get(self) -> Response:
         inputs = self.parse(query_args(), "query")
-        return respond(self.compute(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
+        return respond(self._computed(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
+
+    def _computed(self, inputs: Inputs) -> dict[str, Any]:
+        """The answer, refused with 422 if any of its numbers is not finite (JSON would show null)."""
+        answer = self.compute(inputs)
+        for name, value in answer.items():
+            if isinstance(value, dict) and "value" in value and not np.isfinite(value["value"]).all():
+                raise Problem(
+                    422,
+                    f"{name}: the equations give no finite answer for these inputs.",
+                    {name: ["not a finite number"]},
+                )
+        return answer
 
     def _csv_body(self, args: dict[str, str]) -> dict[str, Any]:
         """A CSV body's columns as quantities; options and single values come from the query string."""
@@ -222,10 +234,18 @@ def _json_body(query: dict[str, Any]) -> dict[str, Any]:
         raise invalid("body", "must be a JSON object")
     for key in query:
         if key.endswith("_unit"):
-            if key in body and body[key] != request.args[key]:
+            if key in body and not _same_unit(body[key], request.args[key], key.removesuffix("_unit")):
                 raise invalid(key, "given in the query string and the body with different values")
             body[key] = request.args[key]
     return body
+
+
+def _same_unit(a: object, b: str, dimension: str) -> bool:
+    """Whether two spellings name one unit (``BAR`` and ``bar``); anything unreadable counts as different."""
+    try:
+        return isinstance(a, str) and resolve_unit(a, dimension) == resolve_unit(b, dimension)  # type: ignore[arg-type]
+    except KeyError:
+        return False
 
 
 def _format_field(*formats: str) -> fields.String:

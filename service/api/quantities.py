@@ -82,7 +82,7 @@ DENSITY = Unit("kg/m3", "density", 1.0)  # type: ignore[arg-type]
 
 def quantity(value_si: NDArray | float, unit: Unit) -> dict[str, Any]:
     """``{"value", "unit"}`` for an SI value or array, converted to ``unit``."""
-    return {"value": _plain((np.asarray(value_si) - unit.offset) / unit.scale), "unit": unit.code}
+    return {"value": _plain(unit.from_si(value_si)), "unit": unit.code}
 
 
 def ratio(value_si: NDArray | float, top: Unit, bottom: Unit) -> dict[str, Any]:
@@ -100,6 +100,6 @@ def _plain(array: NDArray) -> float | NDArray:
     return np.ascontiguousarray(array) if array.ndim else float(array)
 
 
-def format_value(value_si: float, unit: Unit) -> str:
+def format_value(value_si: float, unit: Unit, digits: int = 6) -> str:
     """An SI value shown in ``unit`` for a message, e.g. ``'0.611657 kPa'``."""
-    return f"{(value_si - unit.offset) / unit.scale:.6g} {unit.code}"
+    return f"{float(unit.from_si(value_si)):.{digits}g} {unit.code}"

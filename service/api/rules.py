@@ -29,6 +29,17 @@ NEAR_CRITICAL = 0.98
 SEA_LEVEL_PRESSURE_RANGE = (85e3, 110e3)
 """Plausible reduced sea-level pressures [Pa]; the recorded extremes lie inside it."""
 _MAX_LISTED = 10
+_SLACK = 1e-12
+
+
+def _distinct(value: float, limit: float, unit: Unit) -> tuple[str, str]:
+    """A value and its limit formatted with enough digits to tell them apart."""
+    for digits in (6, 9, 12, 17):
+        shown = format_value(value, unit, digits), format_value(limit, unit, digits)
+        if shown[0] != shown[1]:
+            break
+    return shown
+
 
 STANDARD_ATMOSPHERE_WARNING = (
     "The local atmospheric pressure is the U.S. Standard Atmosphere 1976 value for the given "
@@ -69,8 +80,10 @@ def refuse_outside(
     ``below`` and ``above`` describe the limits, with ``{limit}`` where the limit's value in
     ``unit`` goes; the messages give each bad value, with its index in an array request.
     """
-    too_low = values < low if low is not None else np.zeros(values.shape, dtype=bool)
-    too_high = values > high if high is not None else np.zeros(values.shape, dtype=bool)
+    # A limit typed in another unit comes back a rounding error off (0.01 degC is 273.15999999999997 K):
+    # values within 1e-12 of a limit count as on it.
+    too_low = values < low - _SLACK * np.abs(low) if low is not None else np.zeros(values.shape, dtype=bool)
+    too_high = values > high + _SLACK * np.abs(high) if high is not None else np.zeros(values.shape, dtype=bool)
     bad = too_low | too_high
     if not bad.any():
         return
@@ -78,11 +91,12 @@ def refuse_outside(
     highs = np.broadcast_to(np.inf if high is None else high, values.shape)
     messages = []
     for index in np.flatnonzero(bad)[:_MAX_LISTED]:
-        value = format_value(float(values.flat[index]), unit)
+        limit = float(lows.flat[index] if too_low.flat[index] else highs.flat[index])
+        value, shown = _distinct(float(values.flat[index]), limit, unit)
         if too_low.flat[index]:
-            text = f"{value} is below " + below.format(limit=format_value(float(lows.flat[index]), unit))
+            text = f"{value} is below " + below.format(limit=shown)
         else:
-            text = f"{value} is above " + above.format(limit=format_value(float(highs.flat[index]), unit))
+            text = f"{value} is above " + above.format(limit=shown)
         messages.append(f"index {index}: {text}" if values.ndim else text)
     count = int(bad.sum())
     if count > len(messages):
@@ -92,13 +106,26 @@ def refuse_outside(
     )
 
 
+SCALED_ATMOSPHERE_WARNING = (
+    "The local atmospheric pressure is the U.S. Standard Atmosphere 1976 at the given elevation, scaled to "
+    "the station's sea-level pressure: closer to today's weather than a standard day, but not a measurement "
+    "on site. Send barometric_pressure for a measured value."
+)
+
+
 @dataclass(frozen=True)
 class LocalPressure:
-    """The absolute pressure a request describes [Pa], and the local atmosphere when it took part."""
+    """The absolute pressure a request describes [Pa], and the local atmosphere when it took part.
+
+    ``note`` is the caution owed when a model stands in for a barometer; ``standard_day`` is
+    true when that model is the unscaled standard atmosphere, which the weather moves by a few
+    percent.
+    """
 
     value: NDArray[np.float64]
     atmosphere: NDArray[np.float64] | None = None
-    standard_atmosphere: bool = False
+    note: str | None = None
+    standard_day: bool = False
 
 
 def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
@@ -192,9 +219,12 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
             "atmosphere), or gauge_pressure with barometric_pressure or elevation.",
             {field: ["missing" if field == "pressure" else "needs barometric_pressure or elevation"]},
         )
-    standard = inputs.get("barometric_pressure") is None
+    note, standard_day = None, False
+    if inputs.get("barometric_pressure") is None:
+        standard_day = inputs.get("sea_level_pressure") is None
+        note = STANDARD_ATMOSPHERE_WARNING if standard_day else SCALED_ATMOSPHERE_WARNING
     if gauge is None:
-        return LocalPressure(atmosphere_pressure, atmosphere_pressure, standard)
+        return LocalPressure(atmosphere_pressure, atmosphere_pressure, note, standard_day)
     refuse_outside(
         "gauge_pressure",
         gauge,
@@ -204,7 +234,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
         "{limit}, the deepest vacuum the local atmosphere allows",
         "",
     )
-    return LocalPressure(atmosphere_pressure + gauge, atmosphere_pressure, standard)
+    return LocalPressure(atmosphere_pressure + gauge, atmosphere_pressure, note, standard_day)
 
 
 def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapolate: bool, warnings: list[str]) -> None:

@@ -16,7 +16,6 @@ from service.api.rules import (
     GRAVITY,
     PRESSURE_INPUTS,
     SITE_INPUTS,
-    STANDARD_ATMOSPHERE_WARNING,
     WEATHER_SPREAD,
     check_boiling_pressure,
     check_liquid_temperature,
@@ -73,11 +72,11 @@ def boiling_point(inputs: Inputs) -> dict[str, Any]:
     if uncertainty is not None:
         refuse_outside("pressure_uncertainty", uncertainty, p_unit, 0.0, None, "zero, {limit}", "")
         answer["boiling_point_uncertainty"] = difference(slope * uncertainty, t_unit)
-    note = None
-    if local.standard_atmosphere:
-        spread = difference(float(np.max(slope * WEATHER_SPREAD * local.atmosphere)), t_unit)
+    note = local.note
+    if local.standard_day:
+        spread = difference(float(np.max(slope * WEATHER_SPREAD * local.atmosphere, initial=0.0)), t_unit)
         note = (
-            f"{STANDARD_ATMOSPHERE_WARNING} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
+            f"{note} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
             f"boiling point by about {spread['value']:.2g} {spread['unit']}."
         )
     return {
@@ -115,9 +114,9 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
             {"pressure": ["give pressure or boiling_point"], "boiling_point": ["give boiling_point or pressure"]},
         )
     warnings: list[str] = []
-    fluid, answer = None, {}
+    answer: dict[str, Any] = {}
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)  # an unknown name is a 404 either way
     if boiling is not None:
-        fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
         check_liquid_temperature(fluid, boiling, t_unit, inputs.options["extrapolate"], warnings, "boiling_point")
         pressure = fluid.saturation_pressure(boiling)
         answer = {"fluid": fluid.id, "boiling_point": quantity(boiling, t_unit)}
@@ -136,7 +135,7 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
         "elevation": quantity(atmosphere.elevation_at_pressure(pressure, sea_level), inputs.units["length"]),
         "pressure": quantity(pressure, p_unit),
         **answer,
-        **provenance(fluid, ELEVATION_WARNING, warnings),
+        **provenance(fluid if boiling is not None else None, ELEVATION_WARNING, warnings),
     }
 
 

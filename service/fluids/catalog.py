@@ -109,8 +109,13 @@ class Fluid:
 
     @cached_property
     def p_min(self) -> float:
-        """Saturation pressure at the lower end of the stated range [Pa]."""
-        return float(self.equation.pressure(self.stated_range[0]))
+        """Saturation pressure at the lower end of the stated range [Pa].
+
+        Where the range starts at the triple point, the catalog's triple-point pressure counts too:
+        the equation may put it a rounding above the published figure (water: 611.65707 vs 611.657 Pa).
+        """
+        low = float(self.equation.pressure(self.stated_range[0]))
+        return min(low, self.triple_pressure) if self.stated_range[0] == self.triple_temperature else low
 
     @cached_property
     def p_max(self) -> float:

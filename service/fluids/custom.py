@@ -22,6 +22,8 @@ TROUTON_ENTROPY = 88.0
 """Trouton's rule: entropy of vaporization at the normal boiling point [J/(mol K)], about 10.5 R.
 
 F. Trouton, Phil. Mag. 18, 54 (1884); 85 to 88 J/(mol K) is the usual textbook figure."""
+POINT_TEMPERATURES = (1.0, 10_000.0)
+"""Boiling points [K] a one-point fluid may have: from helium's neighbourhood to well past any liquid."""
 POINT_RANGE = (1e-3, 10.0)
 """A one-point fluid answers for pressures from 1/1000 to 10 times its known pressure."""
 
@@ -78,8 +80,9 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
     >>> round(float(toluene.saturation_temperature(10_000.0)) - 273.15, 1)  # reference EOS: 45.3 degC
     41.7
     """
-    if not (math.isfinite(temperature) and temperature > 0 and math.isfinite(pressure) and pressure > 0):
-        raise ValueError("the boiling point must lie above absolute zero, at a positive pressure")
+    low, high = POINT_TEMPERATURES
+    if not (low <= temperature <= high and math.isfinite(pressure) and pressure > 0):
+        raise ValueError(f"the boiling point must lie between {low:g} K and {high:g} K, at a positive pressure")
     notes = [_UNCHECKED]
     method, source = "Clausius-Clapeyron equation through one boiling point", _CLAUSIUS
     if enthalpy is None:

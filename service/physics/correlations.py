@@ -170,7 +170,7 @@ class Wagner(VaporPressureEquation):
     def _half_units(self) -> tuple[list[float], list[int], list[float], list[int]] | None:
         """Series and derivative as (coefficients, powers of sqrt(tau)), high to low; None if not half-integral."""
         halves = [2 * e for e in self.exponents]
-        if any(h != round(h) or h < 2 for h in halves):
+        if any(not math.isfinite(h) or h != round(h) or h < 2 for h in halves):
             return None
         terms = sorted(zip((int(h) for h in halves), self.coefficients, self.exponents, strict=True), reverse=True)
         return (
@@ -237,9 +237,11 @@ class ExtendedAntoine(VaporPressureEquation):
 
     def ln_pressure_and_slope(self, temperature: NDArray) -> tuple[NDArray, NDArray]:
         shifted = temperature + self.c
-        power = self.f * temperature ** (self.g - 1.0)
-        ln_p = self.a + self.b / shifted + self.d * temperature + self.e * np.log(temperature) + power * temperature
-        d_ln_p = -self.b / shifted**2 + self.d + self.e / temperature + self.g * power
+        ln_p, d_ln_p = self.ln_pressure(temperature), -self.b / shifted**2 + self.d
+        if self.e:
+            d_ln_p = d_ln_p + self.e / temperature
+        if self.f:
+            d_ln_p = d_ln_p + self.f * self.g * temperature ** (self.g - 1.0)
         return ln_p, d_ln_p
 
 
