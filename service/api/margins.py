@@ -15,7 +15,6 @@ from service.api.quantities import DENSITY, difference, quantity
 from service.api.rules import (
     GRAVITY,
     PRESSURE_INPUTS,
-    STANDARD_ATMOSPHERE_WARNING,
     check_boiling_pressure,
     check_liquid_temperature,
     local_pressure,
@@ -24,7 +23,6 @@ from service.api.rules import (
     refuse_outside,
     require_liquid_density,
 )
-from service.physics.units import difference_scale
 
 blueprint = Blueprint("margins", __name__)
 
@@ -54,7 +52,7 @@ def saturation_margin(inputs: Inputs) -> dict[str, Any]:
     saturation = fluid.saturation_temperature(local.value)
     note_near_critical(fluid, saturation, t_unit, warnings)
     tolerance_setting = inputs.options.get("tolerance")
-    tolerance = DEFAULT_TOLERANCE if tolerance_setting is None else tolerance_setting * difference_scale(t_unit.code)
+    tolerance = DEFAULT_TOLERANCE if tolerance_setting is None else tolerance_setting * t_unit.scale  # a difference
     margin = saturation - inputs.values["temperature"]
     state = np.where(margin > tolerance, "subcooled", np.where(margin < -tolerance, "superheated", "saturated"))
     return {
@@ -65,7 +63,7 @@ def saturation_margin(inputs: Inputs) -> dict[str, Any]:
         "margin": difference(margin, t_unit),
         "state": state.tolist() if state.ndim else str(state),
         "tolerance": difference(tolerance, t_unit),
-        **provenance(fluid, STANDARD_ATMOSPHERE_WARNING if local.standard_atmosphere else None, warnings),
+        **provenance(fluid, local.note, warnings),
     }
 
 
@@ -109,7 +107,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
         "static_head": quantity(static, l_unit),
         "friction_loss": quantity(friction, l_unit),
         "npsh_available": quantity(npsh, l_unit),
-        **provenance(fluid, STANDARD_ATMOSPHERE_WARNING if local.standard_atmosphere else None, warnings, density),
+        **provenance(fluid, local.note, warnings, density),
     }
 
 

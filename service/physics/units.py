@@ -9,9 +9,9 @@ pure scales; temperature scales carry an offset. Factors are exact by definition
 - 1 inHg = 3386.389 Pa (conventional, 32 degF column; NIST SP 811, appendix B.8);
 - 1 ft = 0.3048 m (international foot, 1959).
 
->>> convert_to_si(14.6959487755, "psi", "pressure").round(3)
+>>> resolve_unit("psi", "pressure").to_si(14.6959487755).round(3)
 np.float64(101325.0)
->>> convert_from_si(373.15, "degF", "temperature").round(6)
+>>> resolve_unit("degF", "temperature").from_si(373.15).round(6)
 np.float64(212.0)
 """
 
@@ -34,6 +34,14 @@ class Unit:
     dimension: Dimension
     scale: float
     offset: float = 0.0
+
+    def to_si(self, value: ArrayLike) -> NDArray[np.float64]:
+        """``value`` in this unit, in SI [Pa, K or m]."""
+        return np.asarray(value, dtype=float) * self.scale + self.offset
+
+    def from_si(self, value: ArrayLike) -> NDArray[np.float64]:
+        """``value`` in SI [Pa, K or m], in this unit."""
+        return (np.asarray(value, dtype=float) - self.offset) / self.scale
 
 
 _ATM = 101_325.0
@@ -127,18 +135,6 @@ def resolve_unit(name: str, dimension: Dimension) -> Unit:
 def codes(dimension: Dimension) -> list[str]:
     """Canonical codes of one dimension, in table order."""
     return [u.code for u in UNITS.values() if u.dimension == dimension]
-
-
-def convert_to_si(value: ArrayLike, unit: str, dimension: Dimension) -> NDArray[np.float64]:
-    """Convert ``value`` in ``unit`` to SI [Pa, K or m]."""
-    u = resolve_unit(unit, dimension)
-    return np.asarray(value, dtype=float) * u.scale + u.offset
-
-
-def convert_from_si(value: ArrayLike, unit: str, dimension: Dimension) -> NDArray[np.float64]:
-    """Convert ``value`` in SI [Pa, K or m] to ``unit``."""
-    u = resolve_unit(unit, dimension)
-    return (np.asarray(value, dtype=float) - u.offset) / u.scale
 
 
 def difference_scale(unit: str) -> float:

@@ -18,6 +18,8 @@ SI throughout: temperature [K], pressure [Pa].
 
 from __future__ import annotations
 
+from functools import cache
+
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
@@ -73,7 +75,12 @@ SATURATION = _WaterSaturation(
 
 TRIPLE_PRESSURE = float(SATURATION.pressure(TRIPLE_TEMPERATURE))
 """Saturation pressure at the triple point from eq. (1) [Pa]; the release gives 611.657 Pa."""
-_INVERSE = InverseTable(SATURATION, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)
+
+
+@cache
+def _inverse() -> InverseTable:
+    """The table of exact inverses, built on first use (about 2 ms)."""
+    return InverseTable(SATURATION, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)
 
 
 def saturation_pressure(temperature: ArrayLike) -> NDArray[np.float64]:
@@ -100,7 +107,7 @@ def saturation_temperature(pressure: ArrayLike) -> NDArray[np.float64]:
     >>> round(float(saturation_temperature(1e6)), 3)  # IF97 Table 36: 453.035632 K (IF97 is 0.008 K high)
     453.028
     """
-    return _INVERSE(pressure)
+    return _inverse()(pressure)
 
 
 def saturation_temperature_slope(pressure: ArrayLike) -> NDArray[np.float64]:

@@ -3,7 +3,7 @@
 import numpy as np
 import pytest
 
-from service.physics.units import DEFAULT_UNITS, UNITS, codes, convert_from_si, convert_to_si, resolve_unit
+from service.physics.units import DEFAULT_UNITS, UNITS, codes, resolve_unit
 
 # Exact factors by definition: CGPM 1954 (atm), the 1959 international yard and pound
 # (ft, psi), conventional mercury columns (NIST SP 811, appendix B.8: mmHg, inHg).
@@ -24,7 +24,7 @@ EXACT = [
 
 @pytest.mark.parametrize(("code", "dimension", "pascal"), EXACT)
 def test_exact_factors(code: str, dimension: str, pascal: float) -> None:
-    assert convert_to_si(1.0, code, dimension) == pytest.approx(pascal, rel=1e-15)
+    assert resolve_unit(code, dimension).to_si(1.0) == pytest.approx(pascal, rel=1e-15)
 
 
 @pytest.mark.parametrize(
@@ -33,8 +33,8 @@ def test_exact_factors(code: str, dimension: str, pascal: float) -> None:
 )
 def test_temperature_scales(value: float, unit: str, kelvin: float) -> None:
     # ITS-90 scale definitions, common practice, no source.
-    assert convert_to_si(value, unit, "temperature") == pytest.approx(kelvin, abs=1e-12)
-    assert convert_from_si(kelvin, unit, "temperature") == pytest.approx(value, abs=1e-12)
+    assert resolve_unit(unit, "temperature").to_si(value) == pytest.approx(kelvin, abs=1e-12)
+    assert resolve_unit(unit, "temperature").from_si(kelvin) == pytest.approx(value, abs=1e-12)
 
 
 @pytest.mark.parametrize(
@@ -65,7 +65,7 @@ def test_unknown_and_wrong_dimension_are_refused() -> None:
 def test_every_code_round_trips_arrays() -> None:
     values = np.array([-3.5, 0.0, 1.0, 1234.5])
     for unit in UNITS.values():
-        back = convert_from_si(convert_to_si(values, unit.code, unit.dimension), unit.code, unit.dimension)
+        back = unit.from_si(unit.to_si(values))
         np.testing.assert_allclose(back, values, rtol=1e-14, atol=1e-12)
 
 
