@@ -155,8 +155,12 @@ def pressure_at_elevation(
     """
     h = geopotential_height(elevation)
     i = _layer_of_height(h)
-    base_t = _BASE_T[i]
-    ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / base_t) + _C[i] * (h - _BASE_HEIGHT[i])
+    if isinstance(i, int) and _LINEAR[i]:  # one layer: only its term of eq. (33a) or (33b)
+        ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / _BASE_T[i])
+    elif isinstance(i, int):
+        ln_ratio = _C[i] * (h - _BASE_HEIGHT[i])
+    else:  # per point; the unused term is an exact zero, so the floats match the line above
+        ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / _BASE_T[i]) + _C[i] * (h - _BASE_HEIGHT[i])
     return _BASE_P[i] * np.exp(ln_ratio) * (np.asarray(sea_level_pressure, dtype=float) / SEA_LEVEL_PRESSURE)
 
 
@@ -182,16 +186,6 @@ def _layer_of_pressure(p: NDArray) -> NDArray[np.intp] | int:
     return np.clip(np.searchsorted(-_BASE_P, -p, side="right") - 1, 0, _BASE_P.size - 1)
 
 
-def _rise_linear(ln_ratio: NDArray, base_t: NDArray | float, lapse: NDArray | float) -> NDArray:
-    """H - Hb [m'] in a layer of lapse rate L != 0: Tb (exp(-L ln(P/Pb) / k) - 1) / L."""
-    return np.expm1(ln_ratio * (-lapse / _K)) * (base_t / lapse)
-
-
-def _rise_isothermal(ln_ratio: NDArray, base_t: NDArray | float) -> NDArray:
-    """H - Hb [m'] in an isothermal layer: -Tb ln(P/Pb) / k."""
-    return ln_ratio * (-base_t / _K)
-
-
 @blockwise
 def elevation_at_pressure(
     pressure: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
@@ -208,11 +202,21 @@ def elevation_at_pressure(
     i = _layer_of_pressure(p)
     ln_ratio = np.log(p * (1.0 / _BASE_P[i]))
     base_t = _BASE_T[i]
-    if isinstance(i, int):  # one layer: only its branch of eq. (33a) or (33b)
-        dh = _rise_linear(ln_ratio, base_t, _LAPSE[i]) if _LINEAR[i] else _rise_isothermal(ln_ratio, base_t)
+    if isinstance(i, int):  # one layer: only its branch
+        rise = _rise_linear(ln_ratio, base_t, _LAPSE[i]) if _LINEAR[i] else _rise_isothermal(ln_ratio, base_t)
     else:  # the same operations point by point, so both ways agree to the bit
-        dh = np.where(_LINEAR[i], _rise_linear(ln_ratio, base_t, _SAFE_LAPSE[i]), _rise_isothermal(ln_ratio, base_t))
-    return geometric_elevation(_BASE_HEIGHT[i] + dh)
+        rise = np.where(_LINEAR[i], _rise_linear(ln_ratio, base_t, _SAFE_LAPSE[i]), _rise_isothermal(ln_ratio, base_t))
+    return geometric_elevation(_BASE_HEIGHT[i] + rise)
+
+
+def _rise_linear(ln_ratio: NDArray, base_t: NDArray | float, lapse: NDArray | float) -> NDArray:
+    """H - Hb [m'] in a layer of lapse rate L != 0: Tb (exp(-L ln(P/Pb) / k) - 1) / L."""
+    return np.expm1(ln_ratio * (-lapse / _K)) * (base_t / lapse)
+
+
+def _rise_isothermal(ln_ratio: NDArray, base_t: NDArray | float) -> NDArray:
+    """H - Hb [m'] in an isothermal layer: -Tb ln(P/Pb) / k."""
+    return ln_ratio * (-base_t / _K)
 
 
 PRESSURE_AT_MIN_ELEVATION = float(pressure_at_elevation(MIN_ELEVATION))
