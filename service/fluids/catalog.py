@@ -22,7 +22,7 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.schema import FluidEntrySchema
 from service.physics import water
-from service.physics.correlations import Dippr105, ExtendedAntoine, InverseTable, VaporPressureEquation, Wagner
+from service.physics.correlations import Dippr105, ExtendedAntoine, VaporPressureEquation, Wagner, inverse_table
 from service.physics.units import resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
@@ -136,13 +136,9 @@ class Fluid:
         Catalog fluids answer from an :class:`InverseTable` built on first use; a fluid
         defined in a request, used once, runs the Newton iteration directly.
         """
-        if self.tabulated:
-            return self._inverse(pressure)
+        if self.tabulated:  # shared with service.physics.water for the IAPWS equation
+            return inverse_table(self.equation, *self.temperature_limits)(pressure)
         return self.equation.temperature(pressure, *self.temperature_limits)
-
-    @cached_property
-    def _inverse(self) -> InverseTable:
-        return InverseTable(self.equation, *self.temperature_limits)
 
     @cached_property
     def pressure_limits(self) -> tuple[float, float]:

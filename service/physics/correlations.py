@@ -13,7 +13,7 @@ import math
 from abc import ABC, abstractmethod
 from collections.abc import Sequence
 from dataclasses import dataclass
-from functools import cached_property
+from functools import cache, cached_property
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
@@ -125,6 +125,12 @@ class InverseTable:
         t = np.minimum(s - index, 1.0)
         c0, c1, c2, c3 = (c[index] for c in self._c)
         return np.clip(((c3 * t + c2) * t + c1) * t + c0, self.low, self.high)
+
+
+@cache
+def inverse_table(equation: VaporPressureEquation, low: float, high: float) -> InverseTable:
+    """The one :class:`InverseTable` of ``equation`` between ``low`` and ``high`` [K], built on first use."""
+    return InverseTable(equation, low, high)
 
 
 def _gapped_horner(coefficients: Sequence[float], powers: Sequence[int], r: NDArray) -> NDArray:

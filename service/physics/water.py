@@ -18,12 +18,10 @@ SI throughout: temperature [K], pressure [Pa].
 
 from __future__ import annotations
 
-from functools import cache
-
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.correlations import InverseTable, Wagner
+from service.physics.correlations import Wagner, inverse_table
 
 CRITICAL_TEMPERATURE = 647.096
 """Tc [K], IAPWS 1992."""
@@ -77,12 +75,6 @@ TRIPLE_PRESSURE = float(SATURATION.pressure(TRIPLE_TEMPERATURE))
 """Saturation pressure at the triple point from eq. (1) [Pa]; the release gives 611.657 Pa."""
 
 
-@cache
-def _inverse() -> InverseTable:
-    """The table of exact inverses, built on first use (about 2 ms)."""
-    return InverseTable(SATURATION, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)
-
-
 def saturation_pressure(temperature: ArrayLike) -> NDArray[np.float64]:
     """Vapor pressure p_sat [Pa] of water at ``temperature`` [K], 273.16 K to 647.096 K.
 
@@ -107,7 +99,7 @@ def saturation_temperature(pressure: ArrayLike) -> NDArray[np.float64]:
     >>> round(float(saturation_temperature(1e6)), 3)  # IF97 Table 36: 453.035632 K (IF97 is 0.008 K high)
     453.028
     """
-    return _inverse()(pressure)
+    return inverse_table(SATURATION, TRIPLE_TEMPERATURE, CRITICAL_TEMPERATURE)(pressure)
 
 
 def saturation_temperature_slope(pressure: ArrayLike) -> NDArray[np.float64]:
