@@ -10,7 +10,7 @@ from flask import Blueprint
 from service.api import schemas
 from service.api.operations import Input, Inputs, Operation
 from service.api.quantities import DENSITY, format_value, quantity
-from service.api.rules import local_atmosphere, sea_level_pressure
+from service.api.rules import local_atmosphere
 from service.physics import atmosphere
 
 blueprint = Blueprint("atmosphere", __name__)
@@ -18,11 +18,12 @@ blueprint = Blueprint("atmosphere", __name__)
 
 def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
     elevation = inputs.values["elevation"]
-    pressure = local_atmosphere(inputs)
-    sea_level = sea_level_pressure(inputs)
+    pressure = local_atmosphere(inputs)  # checks the elevation and the sea-level pressure
+    sea_level = inputs.get("sea_level_pressure")
+    scale_to = atmosphere.SEA_LEVEL_PRESSURE if sea_level is None else sea_level
     model = atmosphere.MODEL
     warnings = []
-    if inputs.get("sea_level_pressure") is None:
+    if sea_level is None:
         warnings.append(
             "Standard-day values: real air pressure departs from them with the weather by a few "
             "percent; send a station's sea_level_pressure to follow today's weather."
@@ -38,7 +39,7 @@ def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
         "geopotential_height": quantity(atmosphere.geopotential_height(elevation), inputs.units["length"]),
         "pressure": quantity(pressure, inputs.units["pressure"]),
         "temperature": quantity(atmosphere.temperature_at_elevation(elevation), inputs.units["temperature"]),
-        "density": quantity(atmosphere.density_at_elevation(elevation, sea_level), DENSITY),
+        "density": quantity(atmosphere.density_at_elevation(elevation, scale_to), DENSITY),
         "model": model,
         "method": "hydrostatic equation in layers of constant lapse rate, with geopotential height",
         "source": atmosphere.SOURCE,

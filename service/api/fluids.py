@@ -12,7 +12,7 @@ from service.api.operations import query_args
 from service.api.quantities import UnitField, quantity
 from service.api.rules import catalog, resolve_catalog_fluid
 from service.fluids.catalog import Fluid
-from service.physics.units import DEFAULT_UNITS, Unit, resolve_unit
+from service.physics.units import Unit, default_unit
 
 blueprint = Blueprint("fluids", __name__)
 
@@ -30,8 +30,8 @@ class FluidSearchQuery(FluidQuery):
 
 def _units(loaded: dict[str, Any]) -> tuple[Unit, Unit]:
     return (
-        loaded.get("pressure_unit") or resolve_unit(DEFAULT_UNITS["pressure"], "pressure"),
-        loaded.get("temperature_unit") or resolve_unit(DEFAULT_UNITS["temperature"], "temperature"),
+        loaded.get("pressure_unit") or default_unit("pressure"),
+        loaded.get("temperature_unit") or default_unit("temperature"),
     )
 
 

@@ -22,9 +22,8 @@ from werkzeug.exceptions import BadRequest
 from service.api.formats import chosen_format, csv_columns, respond
 from service.api.problems import Problem, invalid
 from service.api.quantities import Quantity, QuantityField, UnitField
-from service.physics.units import DEFAULT_UNITS, Dimension, Unit, resolve_unit
+from service.physics.units import Dimension, Unit, default_unit, resolve_unit
 
-_DEFAULT_UNITS = {d: resolve_unit(code, d) for d, code in DEFAULT_UNITS.items()}
 UNIT_DESCRIPTIONS = {
     "pressure": "Unit of every pressure in the request and the answer.",
     "temperature": "Unit of every temperature in the request and the answer.",
@@ -117,7 +116,7 @@ class Operation:
     def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:
         """Load ``data`` as a ``query`` or ``body`` and convert its quantities to broadcast SI arrays."""
         loaded = self._loaders[kind].load(data)
-        units = {d: loaded.pop(f"{d}_unit", None) or _DEFAULT_UNITS[d] for d in self.dimensions}
+        units = {d: loaded.pop(f"{d}_unit", None) or default_unit(d) for d in self.dimensions}
         values: dict[str, NDArray[np.float64]] = {}
         with np.errstate(over="ignore"):  # an overflow shows as a non-finite value, refused below
             for name, spec in self.inputs.items():

@@ -132,6 +132,11 @@ def resolve_unit(name: str, dimension: Dimension) -> Unit:
     return unit
 
 
+def default_unit(dimension: Dimension) -> Unit:
+    """The unit a request gets for ``dimension`` when it names none (kPa, degC, m)."""
+    return UNITS[DEFAULT_UNITS[dimension]]
+
+
 def codes(dimension: Dimension) -> list[str]:
     """Canonical codes of one dimension, in table order."""
     return [u.code for u in UNITS.values() if u.dimension == dimension]
