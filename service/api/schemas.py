@@ -61,8 +61,13 @@ class Provenance(Schema):
     )
 
 
-class BoilingPointAnswer(Provenance):
+class FluidAnswer(Provenance):
+    """An answer about one fluid."""
+
     fluid = fields.String(required=True, metadata={"description": _FLUID})
+
+
+class BoilingPointAnswer(FluidAnswer):
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
     boiling_point = fields.Nested(Temperature, required=True, metadata={"description": "Saturation temperature."})
     sensitivity = fields.Nested(
@@ -83,8 +88,7 @@ class BoilingPointAnswer(Provenance):
     )
 
 
-class SaturationMarginAnswer(Provenance):
-    fluid = fields.String(required=True, metadata={"description": _FLUID})
+class SaturationMarginAnswer(FluidAnswer):
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
     temperature = fields.Nested(Temperature, required=True, metadata={"description": "The measured temperature."})
     saturation_temperature = fields.Nested(Temperature, required=True)
@@ -106,8 +110,7 @@ class SaturationMarginAnswer(Provenance):
     tolerance = fields.Nested(TemperatureDifference, required=True)
 
 
-class NpshAnswer(Provenance):
-    fluid = fields.String(required=True, metadata={"description": _FLUID})
+class NpshAnswer(FluidAnswer):
     pressure = fields.Nested(
         Pressure, required=True, metadata={"description": "Absolute pressure on the liquid surface."}
     )
@@ -123,8 +126,7 @@ class NpshAnswer(Provenance):
     )
 
 
-class VaporPressureAnswer(Provenance):
-    fluid = fields.String(required=True, metadata={"description": _FLUID})
+class VaporPressureAnswer(FluidAnswer):
     temperature = fields.Nested(Temperature, required=True)
     vapor_pressure = fields.Nested(Pressure, required=True, metadata={"description": "Saturation pressure."})
     sensitivity = fields.Nested(Slope, required=True, metadata={"description": "dp/dT along saturation."})
