@@ -17,6 +17,8 @@ pressure [Pa], temperature [K], density [kg/m3]. Functions take and return numpy
 
 from __future__ import annotations
 
+import bisect
+
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
@@ -62,10 +64,23 @@ _BASE_T, _BASE_P = _layer_bases()
 _LINEAR = _LAPSE != 0.0
 _SAFE_LAPSE = np.where(_LINEAR, _LAPSE, 1.0)
 _ALPHA = _BASE_T - _LAPSE * _BASE_HEIGHT  # T_M = ALPHA + L H, eq. (23)
-# Eqs. (33a) and (33b) per layer as ln(P/Pb) = B ln(T_M/Tb) + C (H - Hb):
-# B = -k/L, C = 0 where the lapse rate L is not zero; B = 0, C = -k/Tb where it is.
+# Eqs. (33a) and (33b) in one form per layer: ln(P/Pb) = B ln(T_M/Tb) + (C H + D), with
+# T_M/Tb = ALPHA/Tb + (L/Tb) H. Where the lapse rate L is not zero, B = -k/L and C = D = 0;
+# where it is, B = 0, C = -k/Tb and D = -C Hb. A term with a zero factor adds an exact zero,
+# so a block within one layer may leave it out and still give the same floats.
 _B = np.where(_LINEAR, -_K / _SAFE_LAPSE, 0.0)
 _C = np.where(_LINEAR, 0.0, -_K / _BASE_T)
+_D = -_C * _BASE_HEIGHT
+_RELATIVE_ALPHA = _ALPHA / _BASE_T
+_RELATIVE_LAPSE = _LAPSE / _BASE_T
+# The inverse per layer: H = Hb + U expm1(V ln(P/Pb)) + W ln(P/Pb), with U = Tb/L, V = -L/k
+# and W = 0 where L is not zero, and U = V = 0, W = -Tb/k where it is.
+_U = np.where(_LINEAR, _BASE_T / _SAFE_LAPSE, 0.0)
+_V = np.where(_LINEAR, -_SAFE_LAPSE / _K, 0.0)
+_W = np.where(_LINEAR, 0.0, -_BASE_T / _K)
+_INVERSE_BASE_P = 1.0 / _BASE_P
+_UPPER_HEIGHTS = _BASE_HEIGHT[1:].tolist()  # [m'], ascending
+_UPPER_PRESSURES = _BASE_P[:0:-1].tolist()  # [Pa], ascending
 # Table 8: M/M0 against geometric elevation, 80 to 86 km; 1 below 80 km.
 _RATIO_Z = np.arange(80_000.0, 86_001.0, 500.0)
 _RATIO_M = np.array(
@@ -108,16 +123,18 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
 def _layer_of_height(h: NDArray) -> NDArray[np.intp] | int:
     """Index of the layer holding each geopotential height: how many upper bases lie at or below it.
 
-    When every height lies in one layer (a site's elevations, a troposphere-only array) the
-    answer is that layer's index alone, and the formulas use its constants without a lookup
-    per point.
+    When every height lies in one layer (a single value, a site's elevations, a
+    troposphere-only array) the answer is that layer's index alone, and the formulas use its
+    constants without a lookup per point.
     """
+    if isinstance(h, float):
+        return bisect.bisect_right(_UPPER_HEIGHTS, h)
     if h.size:
-        low, high = np.searchsorted(_BASE_HEIGHT[1:], (h.min(), h.max()), side="right")
+        low, high = bisect.bisect_right(_UPPER_HEIGHTS, h.min()), bisect.bisect_right(_UPPER_HEIGHTS, h.max())
         if low == high:
-            return int(low)
+            return low
     index = np.zeros(h.shape, dtype=np.intp)
-    for base in _BASE_HEIGHT[1:]:
+    for base in _UPPER_HEIGHTS:
         index += h >= base
     return index
 
@@ -137,7 +154,7 @@ def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
 
 def _molecular_temperature(h: NDArray) -> NDArray:
     i = _layer_of_height(h)
-    return _ALPHA[i] + _LAPSE[i] * h
+    return _ALPHA.take(i) + _LAPSE.take(i) * h
 
 
 @blockwise
@@ -155,13 +172,12 @@ def pressure_at_elevation(
     """
     h = geopotential_height(elevation)
     i = _layer_of_height(h)
-    if isinstance(i, int) and _LINEAR[i]:  # one layer: only its term of eq. (33a) or (33b)
-        ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / _BASE_T[i])
-    elif isinstance(i, int):
-        ln_ratio = _C[i] * (h - _BASE_HEIGHT[i])
-    else:  # per point; the unused term is an exact zero, so the floats match the line above
-        ln_ratio = _B[i] * np.log((_ALPHA[i] + _LAPSE[i] * h) / _BASE_T[i]) + _C[i] * (h - _BASE_HEIGHT[i])
-    return _BASE_P[i] * np.exp(ln_ratio) * (np.asarray(sea_level_pressure, dtype=float) / SEA_LEVEL_PRESSURE)
+    if isinstance(i, int):  # one layer: only its nonzero term
+        ln_ratio = _B[i] * np.log(_RELATIVE_ALPHA[i] + _RELATIVE_LAPSE[i] * h) if _LINEAR[i] else _C[i] * h + _D[i]
+    else:
+        linear = _B.take(i) * np.log(_RELATIVE_ALPHA.take(i) + _RELATIVE_LAPSE.take(i) * h)
+        ln_ratio = linear + (_C.take(i) * h + _D.take(i))
+    return _BASE_P.take(i) * np.exp(ln_ratio) * (sea_level_pressure / SEA_LEVEL_PRESSURE)
 
 
 @blockwise
@@ -178,12 +194,24 @@ def density_at_elevation(
 
 
 def _layer_of_pressure(p: NDArray) -> NDArray[np.intp] | int:
-    """Index of the layer holding each standard pressure [Pa]; one index when all share a layer."""
+    """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure.
+
+    One index when all share a layer, as in :func:`_layer_of_height`.
+    """
+    if isinstance(p, float):
+        return _bases_at_or_above(p)
     if p.size:
-        low, high = np.searchsorted(-_BASE_P[1:], (-p.max(), -p.min()), side="right")
+        low, high = _bases_at_or_above(p.max()), _bases_at_or_above(p.min())
         if low == high:
-            return int(low)
-    return np.clip(np.searchsorted(-_BASE_P, -p, side="right") - 1, 0, _BASE_P.size - 1)
+            return low
+    index = np.zeros(p.shape, dtype=np.intp)
+    for base in _UPPER_PRESSURES:
+        index += p <= base
+    return index
+
+
+def _bases_at_or_above(p: float) -> int:
+    return len(_UPPER_PRESSURES) - bisect.bisect_left(_UPPER_PRESSURES, p)
 
 
 @blockwise
@@ -198,25 +226,14 @@ def elevation_at_pressure(
     >>> round(float(elevation_at_pressure(22_700.0)))
     11000
     """
-    p = np.asarray(pressure, dtype=float) * (SEA_LEVEL_PRESSURE / np.asarray(sea_level_pressure, dtype=float))
+    p = pressure * (SEA_LEVEL_PRESSURE / sea_level_pressure)
     i = _layer_of_pressure(p)
-    ln_ratio = np.log(p * (1.0 / _BASE_P[i]))
-    base_t = _BASE_T[i]
-    if isinstance(i, int):  # one layer: only its branch
-        rise = _rise_linear(ln_ratio, base_t, _LAPSE[i]) if _LINEAR[i] else _rise_isothermal(ln_ratio, base_t)
-    else:  # the same operations point by point, so both ways agree to the bit
-        rise = np.where(_LINEAR[i], _rise_linear(ln_ratio, base_t, _SAFE_LAPSE[i]), _rise_isothermal(ln_ratio, base_t))
-    return geometric_elevation(_BASE_HEIGHT[i] + rise)
-
-
-def _rise_linear(ln_ratio: NDArray, base_t: NDArray | float, lapse: NDArray | float) -> NDArray:
-    """H - Hb [m'] in a layer of lapse rate L != 0: Tb (exp(-L ln(P/Pb) / k) - 1) / L."""
-    return np.expm1(ln_ratio * (-lapse / _K)) * (base_t / lapse)
-
-
-def _rise_isothermal(ln_ratio: NDArray, base_t: NDArray | float) -> NDArray:
-    """H - Hb [m'] in an isothermal layer: -Tb ln(P/Pb) / k."""
-    return ln_ratio * (-base_t / _K)
+    ln_ratio = np.log(p * _INVERSE_BASE_P.take(i))
+    if isinstance(i, int):  # one layer: only its nonzero term
+        rise = np.expm1(ln_ratio * _V[i]) * _U[i] if _LINEAR[i] else ln_ratio * _W[i]
+    else:
+        rise = np.expm1(ln_ratio * _V.take(i)) * _U.take(i) + ln_ratio * _W.take(i)
+    return geometric_elevation(_BASE_HEIGHT.take(i) + rise)
 
 
 PRESSURE_AT_MIN_ELEVATION = float(pressure_at_elevation(MIN_ELEVATION))

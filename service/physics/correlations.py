@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 from abc import ABC, abstractmethod
-from collections.abc import Sequence
+from collections.abc import Iterable
 from dataclasses import dataclass
 from functools import cache, cached_property
 
@@ -123,8 +123,8 @@ class InverseTable:
         s = np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step
         index = np.minimum(s.astype(np.intp), self._last)
         t = np.minimum(s - index, 1.0)
-        c0, c1, c2, c3 = (c[index] for c in self._c)
-        return np.clip(((c3 * t + c2) * t + c1) * t + c0, self.low, self.high)
+        c0, c1, c2, c3 = (c.take(index) for c in self._c)
+        return np.minimum(np.maximum(((c3 * t + c2) * t + c1) * t + c0, self.low), self.high)
 
 
 @cache
@@ -133,20 +133,37 @@ def inverse_table(equation: VaporPressureEquation, low: float, high: float) -> I
     return InverseTable(equation, low, high)
 
 
-def _gapped_horner(coefficients: Sequence[float], powers: Sequence[int], r: NDArray) -> NDArray:
-    """sum(c_i r**k_i) for whole powers k_i sorted high to low, by Horner over the gaps."""
-    cache: dict[int, NDArray] = {1: r}
+@dataclass(frozen=True)
+class _GappedPolynomial:
+    """sum(c_i r**k_i) over whole powers k_i, kept high to low for Horner's rule over the gaps."""
 
-    def power(k: int) -> NDArray:
-        if k not in cache:
-            half = power(k // 2)
-            cache[k] = half * half * r if k % 2 else half * half
-        return cache[k]
+    coefficients: tuple[float, ...]
+    powers: tuple[int, ...]
 
-    total = np.full_like(r, coefficients[0])
-    for c, k, k_next in zip(coefficients[1:], powers[1:], powers, strict=False):
-        total = total * power(k_next - k) + c
-    return total * power(powers[-1]) if powers[-1] else total
+    @classmethod
+    def of(cls, terms: Iterable[tuple[int, float]]) -> _GappedPolynomial:
+        """The polynomial with terms ``(power, coefficient)``; terms of one power are added up."""
+        merged: dict[int, float] = {}
+        for k, c in terms:
+            merged[k] = merged.get(k, 0.0) + c
+        powers = sorted(merged, reverse=True)
+        return cls(tuple(merged[k] for k in powers), tuple(powers))
+
+    def __call__(self, r: NDArray) -> NDArray:
+        cache: dict[int, NDArray] = {1: r}
+
+        def power(k: int) -> NDArray:
+            if k not in cache:
+                half = power(k // 2)
+                cache[k] = half * half * r if k % 2 else half * half
+            return cache[k]
+
+        if len(self.powers) == 1 and not self.powers[0]:
+            return np.full_like(r, self.coefficients[0])
+        total = self.coefficients[0]
+        for c, k, k_next in zip(self.coefficients[1:], self.powers[1:], self.powers, strict=False):
+            total = total * power(k_next - k) + c
+        return total * power(self.powers[-1]) if self.powers[-1] else total
 
 
 @dataclass(frozen=True)
@@ -173,28 +190,25 @@ class Wagner(VaporPressureEquation):
         return 0.0, self.critical_temperature
 
     @cached_property
-    def _half_units(self) -> tuple[list[float], list[int], list[float], list[int]] | None:
-        """Series and derivative as (coefficients, powers of sqrt(tau)), high to low; None if not half-integral."""
+    def _in_sqrt_tau(self) -> tuple[_GappedPolynomial, _GappedPolynomial] | None:
+        """The series and its derivative as polynomials in sqrt(tau); None if an exponent is not half-integral."""
         halves = [2 * e for e in self.exponents]
         if any(not math.isfinite(h) or h != round(h) or h < 2 for h in halves):
             return None
-        terms = sorted(zip((int(h) for h in halves), self.coefficients, self.exponents, strict=True), reverse=True)
+        terms = list(zip((int(h) for h in halves), self.coefficients, self.exponents, strict=True))
         return (
-            [a for _, a, _ in terms],
-            [k for k, _, _ in terms],
-            [a * e for _, a, e in terms],
-            [k - 2 for k, _, _ in terms],
+            _GappedPolynomial.of((k, a) for k, a, _ in terms),
+            _GappedPolynomial.of((k - 2, a * e) for k, a, e in terms),
         )
 
     def _series(self, tau: NDArray, slope: bool) -> tuple[NDArray, NDArray | None]:
-        plan = self._half_units
+        plan = self._in_sqrt_tau
         if plan is None:
             series = sum(a * tau**e for a, e in zip(self.coefficients, self.exponents, strict=True))
             d = sum(a * e * tau ** (e - 1) for a, e in zip(self.coefficients, self.exponents, strict=True))
             return np.asarray(series), np.asarray(d) if slope else None
         r = np.sqrt(tau)
-        series = _gapped_horner(plan[0], plan[1], r)
-        return series, _gapped_horner(plan[2], plan[3], r) if slope else None
+        return plan[0](r), plan[1](r) if slope else None
 
     def ln_pressure(self, temperature: NDArray) -> NDArray:
         tc = self.critical_temperature

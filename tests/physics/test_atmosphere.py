@@ -100,3 +100,17 @@ def test_one_layer_shortcut_agrees_to_the_bit() -> None:
         alone = atm.elevation_at_pressure(atm.pressure_at_elevation(layer_z))
         together = atm.elevation_at_pressure(np.array([float(atm.pressure_at_elevation(layer_z)), 101_325.0]))[0]
         assert alone == together, layer_z
+
+
+def test_single_values_equal_array_elements_exactly() -> None:
+    # Shuffled points across all seven layers, layer bases included: each single value gives the
+    # same float as its place in the array.
+    rng = np.random.default_rng(1976)
+    bases = atm.geometric_elevation(atm._BASE_HEIGHT)
+    z = np.concatenate((rng.uniform(atm.MIN_ELEVATION, atm.MAX_ELEVATION, 3000), bases))
+    p = atm.pressure_at_elevation(z)
+    assert [atm.pressure_at_elevation(float(v)) for v in z] == p.tolist()
+    assert [atm.temperature_at_elevation(float(v)) for v in z] == atm.temperature_at_elevation(z).tolist()
+    assert [atm.density_at_elevation(float(v)) for v in z] == atm.density_at_elevation(z).tolist()
+    assert [atm.elevation_at_pressure(float(v)) for v in p] == atm.elevation_at_pressure(p).tolist()
+    assert float(atm.pressure_at_elevation(0.0)) == atm.SEA_LEVEL_PRESSURE

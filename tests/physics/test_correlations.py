@@ -79,3 +79,22 @@ def test_wagner_horner_matches_the_plain_sum() -> None:
     odd = Wagner(eq.critical_temperature, eq.critical_pressure, (-7.8, 1.8), (1.0, 1.7))  # not half-integral
     plain_odd = np.log(eq.critical_pressure) + eq.critical_temperature / t * (-7.8 * tau + 1.8 * tau**1.7)
     np.testing.assert_allclose(odd.ln_pressure(t), plain_odd, rtol=1e-14)
+
+
+def test_wagner_with_a_repeated_exponent_adds_its_terms() -> None:
+    # Two terms with one exponent are one term with the summed coefficient (this once recursed forever).
+    eq = water.SATURATION
+    twice = Wagner(eq.critical_temperature, eq.critical_pressure, (-3.9, -3.95951783, 1.84408259), (1.0, 1.0, 1.5))
+    once = Wagner(eq.critical_temperature, eq.critical_pressure, (-7.85951783, 1.84408259), (1.0, 1.5))
+    t = np.linspace(300.0, 640.0, 11)
+    np.testing.assert_allclose(twice.ln_pressure(t), once.ln_pressure(t), rtol=1e-14)
+    np.testing.assert_allclose(twice.slope(t), once.slope(t), rtol=1e-13)
+
+
+def test_single_values_equal_array_elements_exactly() -> None:
+    # A single value runs as a numpy scalar, an array in blocks: the same operations, the same floats.
+    p = np.geomspace(float(water.TRIPLE_PRESSURE), water.CRITICAL_PRESSURE, 997)
+    t = water.saturation_temperature(p)
+    assert [water.saturation_temperature(float(v)) for v in p] == t.tolist()
+    assert [water.saturation_pressure_slope(float(v)) for v in t] == water.saturation_pressure_slope(t).tolist()
+    assert [WATER_ANTOINE.pressure(float(v)) for v in t] == WATER_ANTOINE.pressure(t).tolist()
