@@ -17,8 +17,9 @@ from typing import Any
 
 import numpy as np
 import orjson
-from flask import Response, current_app, request
+from flask import Response, request
 
+from service.api.jsonio import encode
 from service.api.problems import invalid
 
 MEDIA_TYPES = {"json": "application/json", "text": "text/plain", "csv": "text/csv"}
@@ -28,17 +29,25 @@ def chosen_format(requested: str | None, offered: Iterable[str]) -> str:
     """``requested`` if given, else the best of ``offered`` for the Accept header (JSON on a tie)."""
     if requested:
         return requested
+    if request.headers.get("Accept", "*/*") == "*/*":  # no preference: JSON, without parsing the header
+        return "json"
     types = [MEDIA_TYPES["json"], *(MEDIA_TYPES[f] for f in offered if f != "json")]
     best = request.accept_mimetypes.best_match(types, default=MEDIA_TYPES["json"])
     return next(name for name, media in MEDIA_TYPES.items() if media == best)
 
 
-def respond(body: dict[str, Any], fmt: str) -> Response:
-    """The answer ``body`` in format ``fmt``."""
+def render(body: dict[str, Any], fmt: str) -> tuple[bytes, str]:
+    """The answer ``body`` in format ``fmt``, and its media type."""
     if fmt == "json":
-        return current_app.json.response(body)
+        return encode(body), MEDIA_TYPES["json"]
     text = as_text(body) if fmt == "text" else as_csv(body)
-    return Response(text, mimetype=MEDIA_TYPES[fmt])
+    return text.encode(), MEDIA_TYPES[fmt]
+
+
+def respond(body: dict[str, Any], fmt: str) -> Response:
+    """The answer ``body`` in format ``fmt``, as a response."""
+    content, mimetype = render(body, fmt)
+    return Response(content, mimetype=mimetype)
 
 
 CACHE_CONTROL = "public, max-age=3600"
@@ -56,7 +65,8 @@ def _etag(body: bytes) -> str:
 
 def _tagged(body: bytes, mimetype: str, etag: str) -> Response:
     headers = {"ETag": f'"{etag}"', "Cache-Control": CACHE_CONTROL, "Vary": "Accept"}
-    if request.if_none_match.contains_weak(etag):  # If-None-Match compares weakly (RFC 9110)
+    # If-None-Match compares weakly (RFC 9110); most requests carry none, and skip parsing it.
+    if "If-None-Match" in request.headers and request.if_none_match.contains_weak(etag):
         return Response(status=304, headers=headers)
     return Response(body, mimetype=mimetype, headers=headers)
 
@@ -73,12 +83,13 @@ class AnswerCache:
         self.size = size
         self._answers: OrderedDict[tuple[str, bytes, str], tuple[bytes, str, str]] = OrderedDict()
 
-    def get_or_compute(self, compute: Callable[[], Response]) -> Response:
+    def answer(self, compute: Callable[[], tuple[bytes, str]]) -> Response:
+        """The response to this GET: ``compute()`` gives its body and media type, unless a recent answer stands."""
         key = (request.path, request.query_string, request.headers.get("Accept", ""))
         hit = self._answers.get(key)
         if hit is None:
-            response = compute()
-            hit = (response.get_data(), response.mimetype, _etag(response.get_data()))
+            content, mimetype = compute()
+            hit = (content, mimetype, _etag(content))
             if self.size:
                 self._answers[key] = hit
                 if len(self._answers) > self.size:

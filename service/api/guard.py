@@ -8,6 +8,7 @@ microseconds per request.
 from __future__ import annotations
 
 import contextlib
+import functools
 import hmac
 import logging
 import os
@@ -15,6 +16,7 @@ import re
 import sys
 import time
 import uuid
+from typing import Any
 
 import numpy as np
 import orjson
@@ -35,6 +37,8 @@ from service.api.problems import Problem
 _REQUEST_ID = re.compile(r"^[A-Za-z0-9._:-]{1,128}$")
 _OPEN_PATHS = frozenset({"/", "/healthz", "/readyz", "/metrics", "/openapi.json"})
 """Answered without the API key: probes, the metrics scraper and the documentation carry no token."""
+_METHODS = frozenset({"GET", "HEAD", "POST", "OPTIONS", "PUT", "PATCH", "DELETE"})
+"""Methods counted by name in the metrics; any other counts as ``other``, so labels stay few."""
 _MAX_DEPTH = 16
 """Deepest JSON nesting a body may have; the deepest valid body nests three levels."""
 
@@ -84,6 +88,12 @@ def configure_logging(level: str = "INFO") -> None:
     root.handlers[:] = [handler]
     root.setLevel(level.upper())
     root.propagate = False
+
+
+@functools.lru_cache(maxsize=1024)
+def _child(metric: Counter | Histogram, *labels: str) -> Any:
+    """``metric.labels(*labels)``, looked up once per label set (paths, methods and statuses are few)."""
+    return metric.labels(*labels)
 
 
 def request_id() -> str:
@@ -150,11 +160,12 @@ def install(app: Flask) -> None:
             response.vary.add("Origin")
         rule = request.url_rule.rule if request.url_rule else "(unknown)"
         elapsed = time.perf_counter() - g.get("started", time.perf_counter())
-        REQUESTS.labels(rule, request.method, str(response.status_code)).inc()
-        LATENCY.labels(rule).observe(elapsed)
+        method = request.method if request.method in _METHODS else "other"  # a client's made-up method
+        _child(REQUESTS, rule, method, str(response.status_code)).inc()
+        _child(LATENCY, rule).observe(elapsed)
         points = g.get("points")
         if points:
-            POINTS.labels(rule).inc(points)
+            _child(POINTS, rule).inc(points)
         _ACCESS.info(
             "request",
             extra={

@@ -11,15 +11,19 @@ from flask.json.provider import JSONProvider
 _OPTIONS = orjson.OPT_SERIALIZE_NUMPY
 
 
+def encode(obj: Any) -> bytes:
+    """``obj`` as JSON bytes; numpy arrays and scalars are written directly."""
+    return orjson.dumps(obj, option=_OPTIONS)
+
+
 class OrjsonProvider(JSONProvider):
     """Encode with orjson; decoding refuses NaN and Infinity, which JSON does not have."""
 
     def dumps(self, obj: Any, **kwargs: Any) -> str:
-        return orjson.dumps(obj, option=_OPTIONS).decode()
+        return encode(obj).decode()
 
     def loads(self, s: str | bytes, **kwargs: Any) -> Any:
         return orjson.loads(s)
 
     def response(self, *args: Any, **kwargs: Any) -> Response:
-        body = orjson.dumps(self._prepare_response_obj(args, kwargs), option=_OPTIONS)
-        return self._app.response_class(body, mimetype="application/json")
+        return self._app.response_class(encode(self._prepare_response_obj(args, kwargs)), mimetype="application/json")

@@ -19,9 +19,10 @@ from marshmallow import Schema, fields, validate
 from numpy.typing import NDArray
 from werkzeug.exceptions import BadRequest
 
-from service.api.formats import chosen_format, csv_columns, respond
+from service.api.formats import chosen_format, csv_columns, render, respond
+from service.api.loader import FieldLoader
 from service.api.problems import Problem, invalid
-from service.api.quantities import Quantity, QuantityField, UnitField
+from service.api.quantities import Quantity, QuantityField, UnitField, all_finite
 from service.physics.units import Dimension, Unit, default_unit, resolve_unit
 
 UNIT_DESCRIPTIONS = {
@@ -78,7 +79,7 @@ class Operation:
     query_schema: type[Schema] = field(init=False)
     body_schema: type[Schema] = field(init=False)
     units_schema: type[Schema] = field(init=False)
-    _loaders: dict[str, Schema] = field(init=False, repr=False)
+    _loaders: dict[str, FieldLoader] = field(init=False, repr=False)
 
     def __post_init__(self) -> None:
         units = {f"{d}_unit": UnitField(d, metadata={"description": UNIT_DESCRIPTIONS[d]}) for d in self.dimensions}
@@ -111,22 +112,29 @@ class Operation:
             name=f"{self.name}Units", fields={**units, "format": _format_field("json", "csv")}
         )
         # Built once: a schema instance deep-copies its fields, too slow to repeat per request.
-        self._loaders = {"query": self.query_schema(), "body": self.body_schema(), "units": self.units_schema()}
+        self._loaders = {
+            "query": FieldLoader(self.query_schema()),
+            "body": FieldLoader(self.body_schema()),
+            "units": FieldLoader(self.units_schema()),
+        }
 
     def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:
-        """Load ``data`` as a ``query`` or ``body`` and convert its quantities to broadcast SI arrays."""
+        """Load ``data`` as a ``query`` or ``body`` and convert its quantities to broadcast SI arrays.
+
+        A single value stays a numpy scalar: the physics gives it the same floats as an array element.
+        """
         loaded = self._loaders[kind].load(data)
         units = {d: loaded.pop(f"{d}_unit", None) or default_unit(d) for d in self.dimensions}
         values: dict[str, NDArray[np.float64]] = {}
         with np.errstate(over="ignore"):  # an overflow shows as a non-finite value, refused below
             for name, spec in self.inputs.items():
-                if name not in loaded:
+                raw = loaded.pop(name, None)
+                if raw is None:
                     continue
-                raw = loaded.pop(name)
-                given = raw if isinstance(raw, Quantity) else Quantity(np.asarray(raw, dtype=float))
+                given = raw if isinstance(raw, Quantity) else Quantity(np.float64(raw))
                 unit = given.unit or units[spec.dimension]
                 values[name] = si = unit.to_si(given.value)
-                if not np.isfinite(si).all():
+                if not all_finite(si):
                     raise Problem(
                         422,
                         f"{name}: a value is too large to be a {spec.dimension} in SI units.",
@@ -144,7 +152,7 @@ class Operation:
 
     def view(self) -> Response:
         if request.method in ("GET", "HEAD"):
-            return current_app.extensions["answers"].get_or_compute(self._answer_get)
+            return current_app.extensions["answers"].answer(self._answer_get)
         args = query_args()
         requested = (
             self._loaders["units"].load({"format": args.pop("format")}).get("format") if "format" in args else None
@@ -156,15 +164,15 @@ class Operation:
             body = _json_body(args)
         return respond(self._computed(self.parse(body, "body")), chosen_format(requested, ("csv",)))
 
-    def _answer_get(self) -> Response:
+    def _answer_get(self) -> tuple[bytes, str]:
         inputs = self.parse(query_args(), "query")
-        return respond(self._computed(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
+        return render(self._computed(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
 
     def _computed(self, inputs: Inputs) -> dict[str, Any]:
         """The answer, refused with 422 if any of its numbers is not finite (JSON would show null)."""
         answer = self.compute(inputs)
         for name, value in answer.items():
-            if isinstance(value, dict) and "value" in value and not np.isfinite(value["value"]).all():
+            if isinstance(value, dict) and "value" in value and not all_finite(value["value"]):
                 raise Problem(
                     422,
                     f"{name}: the equations give no finite answer for these inputs.",

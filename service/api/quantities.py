@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from typing import Any
 
@@ -21,7 +22,10 @@ class Quantity:
 
 
 def finite_numbers(value: Any) -> NDArray[np.float64]:
-    """A number or a flat list (or float array, from CSV) of numbers as a float array; ValidationError otherwise."""
+    """A number as a numpy float, or a flat list (or float array, from CSV) of numbers as a float array.
+
+    Anything else, or a number that is not finite, raises ValidationError.
+    """
     if isinstance(value, np.ndarray):
         array = value
     elif isinstance(value, bool) or not isinstance(value, int | float | list):
@@ -29,10 +33,15 @@ def finite_numbers(value: Any) -> NDArray[np.float64]:
     elif isinstance(value, list) and not set(map(type, value)) <= {int, float}:
         raise ValidationError("an array must hold numbers only")
     else:
-        array = np.asarray(value, dtype=float)
-    if not np.isfinite(array).all():
+        array = np.asarray(value, dtype=float) if isinstance(value, list) else np.float64(value)
+    if not all_finite(array):
         raise ValidationError("numbers must be finite")
     return array
+
+
+def all_finite(value: NDArray | float) -> bool:
+    """Whether a number, or every number of an array, is finite."""
+    return math.isfinite(value) if isinstance(value, float) else bool(np.isfinite(value).all())
 
 
 class UnitField(fields.String):
@@ -87,17 +96,17 @@ def quantity(value_si: NDArray | float, unit: Unit) -> dict[str, Any]:
 
 def ratio(value_si: NDArray | float, top: Unit, bottom: Unit) -> dict[str, Any]:
     """A slope such as dT/dp as ``{"value", "unit": "degC/kPa"}``; temperatures count as differences."""
-    return {"value": _plain(np.asarray(value_si) * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
+    return {"value": _plain(value_si * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
 
 
 def difference(value_kelvin: NDArray | float, unit: Unit) -> dict[str, Any]:
     """A temperature difference [K] as ``{"value", "unit"}``: in K for K and degC, degR for degF and degR."""
-    return {"value": _plain(np.asarray(value_kelvin) / unit.scale), "unit": "K" if unit.scale == 1.0 else "degR"}
+    return {"value": _plain(value_kelvin / unit.scale), "unit": "K" if unit.scale == 1.0 else "degR"}
 
 
-def _plain(array: NDArray) -> float | NDArray:
+def _plain(value: NDArray | float) -> float | NDArray:
     """A float, or the array itself: orjson writes float arrays directly, with no list in between."""
-    return np.ascontiguousarray(array) if array.ndim else float(array)
+    return np.ascontiguousarray(value) if isinstance(value, np.ndarray) and value.ndim else float(value)
 
 
 def format_value(value_si: float, unit: Unit, digits: int = 6) -> str:

@@ -66,6 +66,11 @@ def resolve_catalog_fluid(name: str) -> Fluid:
     return fluid
 
 
+def any_true(mask: NDArray[np.bool_] | bool) -> bool:
+    """Whether any element of a boolean array, or a single boolean, is true (the latter without a reduction)."""
+    return bool(mask.any()) if isinstance(mask, np.ndarray) else bool(mask)
+
+
 def refuse_outside(
     field: str,
     values: NDArray,
@@ -82,13 +87,14 @@ def refuse_outside(
     """
     # A limit typed in another unit comes back a rounding error off (0.01 degC is 273.15999999999997 K):
     # values within 1e-12 of a limit count as on it.
-    too_low = values < low - _SLACK * np.abs(low) if low is not None else np.zeros(values.shape, dtype=bool)
-    too_high = values > high + _SLACK * np.abs(high) if high is not None else np.zeros(values.shape, dtype=bool)
-    bad = too_low | too_high
-    if not bad.any():
+    too_low = values < low - _SLACK * abs(low) if low is not None else False
+    too_high = values > high + _SLACK * abs(high) if high is not None else False
+    if not (any_true(too_low) or any_true(too_high)):
         return
-    lows = np.broadcast_to(-np.inf if low is None else low, values.shape)
-    highs = np.broadcast_to(np.inf if high is None else high, values.shape)
+    bad = np.logical_or(too_low, too_high)
+    values, too_low = np.broadcast_to(values, bad.shape), np.broadcast_to(too_low, bad.shape)
+    lows = np.broadcast_to(-np.inf if low is None else low, bad.shape)
+    highs = np.broadcast_to(np.inf if high is None else high, bad.shape)
     messages = []
     for index in np.flatnonzero(bad)[:_MAX_LISTED]:
         limit = float(lows.flat[index] if too_low.flat[index] else highs.flat[index])
@@ -290,7 +296,7 @@ def _check_stated_range(
     """Refuse values outside the equation's stated range, or with ``extrapolate`` outside its reach, and warn."""
     low, high = stated
     outside = (values < low) | (values > high)
-    if not outside.any():
+    if not any_true(outside):
         return
     where = f"the stated range of the {fluid.method} for {fluid.name}"
     if not extrapolate:
@@ -307,7 +313,7 @@ def _check_stated_range(
 def note_near_critical(fluid: Fluid, temperature: NDArray, unit: Unit, warnings: list[str]) -> None:
     """Warn when a saturation temperature lies within 2 % of the critical temperature."""
     near = temperature > NEAR_CRITICAL * fluid.critical_temperature
-    if near.any():
+    if any_true(near):
         warnings.append(
             f"{int(near.sum())} value(s) lie within 2 % of the critical temperature of {fluid.name} "
             f"({format_value(fluid.critical_temperature, unit)}): properties change steeply there and small "

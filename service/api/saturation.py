@@ -74,7 +74,8 @@ def boiling_point(inputs: Inputs) -> dict[str, Any]:
         answer["boiling_point_uncertainty"] = difference(slope * uncertainty, t_unit)
     note = local.note
     if local.standard_day:
-        spread = difference(float(np.max(slope * WEATHER_SPREAD * local.atmosphere, initial=0.0)), t_unit)
+        shifts = slope * WEATHER_SPREAD * local.atmosphere
+        spread = difference(float(shifts.max(initial=0.0) if isinstance(shifts, np.ndarray) else shifts), t_unit)
         note = (
             f"{note} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
             f"boiling point by about {spread['value']:.2g} {spread['unit']}."

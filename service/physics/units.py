@@ -37,11 +37,16 @@ class Unit:
 
     def to_si(self, value: ArrayLike) -> NDArray[np.float64]:
         """``value`` in this unit, in SI [Pa, K or m]."""
-        return np.asarray(value, dtype=float) * self.scale + self.offset
+        return _numbers(value) * self.scale + self.offset
 
     def from_si(self, value: ArrayLike) -> NDArray[np.float64]:
         """``value`` in SI [Pa, K or m], in this unit."""
-        return (np.asarray(value, dtype=float) - self.offset) / self.scale
+        return (_numbers(value) - self.offset) / self.scale
+
+
+def _numbers(value: ArrayLike) -> NDArray[np.float64]:
+    """``value`` as float64: an array, or a numpy scalar as it is (scalar arithmetic is cheaper, same floats)."""
+    return value if isinstance(value, np.float64 | np.ndarray) else np.asarray(value, dtype=float)
 
 
 _ATM = 101_325.0
