@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 from abc import ABC, abstractmethod
-from collections.abc import Iterable
+from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from functools import cache, cached_property
 
@@ -105,7 +105,7 @@ class InverseTable:
         self.low, self.high = low, high
         ln_lo, self._ln_high = (float(v) for v in equation.ln_pressure(np.array([low, high])))
         self._step = math.sqrt(self._ln_high - ln_lo) / intervals
-        self._last = intervals - 1
+        self._end = float(intervals)
         s = np.arange(intervals + 1) * self._step
         ln_p = self._ln_high - s * s
         nodes = equation.temperature(np.exp(ln_p), low, high)
@@ -113,18 +113,21 @@ class InverseTable:
         _, d_ln_p = equation.ln_pressure_and_slope(nodes)
         tangent = -2.0 * s / d_ln_p * self._step  # dT/ds, per interval
         t0, t1, m0, m1 = nodes[:-1], nodes[1:], tangent[:-1], tangent[1:]
-        self._c = (t0, m0, 3 * (t1 - t0) - 2 * m0 - m1, 2 * (t0 - t1) + m0 + m1)
+        # One more interval past the last node, constant at `low`: s at the very end needs no clamp.
+        c = (t0, m0, 3 * (t1 - t0) - 2 * m0 - m1, 2 * (t0 - t1) + m0 + m1)
+        self._c = tuple(np.append(part, end) for part, end in zip(c, (low, 0.0, 0.0, 0.0), strict=True))
 
     def __call__(self, pressure: ArrayLike) -> NDArray[np.float64]:
         """Saturation temperature [K] at ``pressure`` [Pa]; pressures beyond the ends give the ends."""
         return in_blocks(self._evaluate, pressure)
 
     def _evaluate(self, pressure: NDArray) -> NDArray:
-        s = np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step
-        index = np.minimum(s.astype(np.intp), self._last)
-        t = np.minimum(s - index, 1.0)
-        c0, c1, c2, c3 = (c.take(index) for c in self._c)
-        return np.minimum(np.maximum(((c3 * t + c2) * t + c1) * t + c0, self.low), self.high)
+        # s in intervals from the high end, clamped to the table: no index or fraction falls outside it.
+        s = np.minimum(np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step, self._end)
+        index = s.astype(np.intp)
+        t = s - index
+        c0, c1, c2, c3 = (c.take(index, mode="clip") for c in self._c)
+        return ((c3 * t + c2) * t + c1) * t + c0
 
 
 @cache
@@ -149,21 +152,34 @@ class _GappedPolynomial:
         powers = sorted(merged, reverse=True)
         return cls(tuple(merged[k] for k in powers), tuple(powers))
 
-    def __call__(self, r: NDArray) -> NDArray:
-        cache: dict[int, NDArray] = {1: r}
+    @property
+    def steps(self) -> set[int]:
+        """The powers of r that Horner's rule multiplies by: the gaps, and the lowest power."""
+        return ({a - b for a, b in zip(self.powers, self.powers[1:], strict=False)} | {self.powers[-1]}) - {0}
 
-        def power(k: int) -> NDArray:
-            if k not in cache:
-                half = power(k // 2)
-                cache[k] = half * half * r if k % 2 else half * half
-            return cache[k]
-
+    def __call__(self, powers: Mapping[int, NDArray], like: NDArray) -> NDArray:
+        """The polynomial at r, given r**k for every k in :attr:`steps`; shaped as ``like`` (r)."""
         if len(self.powers) == 1 and not self.powers[0]:
-            return np.full_like(r, self.coefficients[0])
+            return np.full_like(like, self.coefficients[0])
         total = self.coefficients[0]
         for c, k, k_next in zip(self.coefficients[1:], self.powers[1:], self.powers, strict=False):
-            total = total * power(k_next - k) + c
-        return total * power(self.powers[-1]) if self.powers[-1] else total
+            total = total * powers[k_next - k] + c
+        return total * powers[self.powers[-1]] if self.powers[-1] else total
+
+
+def _power_plan(needed: Iterable[int]) -> tuple[tuple[int, int, bool], ...]:
+    """How to build r**k for every k in ``needed`` from r: steps (k, h, odd) with r**k = (r**h)**2 (* r if odd).
+
+    >>> _power_plan({2, 7})
+    ((2, 1, False), (3, 1, True), (7, 3, True))
+    """
+    wanted: set[int] = set()
+    for power in needed:
+        k = power
+        while k > 1 and k not in wanted:
+            wanted.add(k)
+            k //= 2
+    return tuple((k, k // 2, bool(k % 2)) for k in sorted(wanted))
 
 
 @dataclass(frozen=True)
@@ -190,16 +206,18 @@ class Wagner(VaporPressureEquation):
         return 0.0, self.critical_temperature
 
     @cached_property
-    def _in_sqrt_tau(self) -> tuple[_GappedPolynomial, _GappedPolynomial] | None:
-        """The series and its derivative as polynomials in sqrt(tau); None if an exponent is not half-integral."""
+    def _in_sqrt_tau(self) -> tuple[_GappedPolynomial, _GappedPolynomial, tuple[tuple[int, int, bool], ...]] | None:
+        """The series and its derivative as polynomials in sqrt(tau), and how to build the powers they share.
+
+        None if an exponent is not half-integral.
+        """
         halves = [2 * e for e in self.exponents]
         if any(not math.isfinite(h) or h != round(h) or h < 2 for h in halves):
             return None
         terms = list(zip((int(h) for h in halves), self.coefficients, self.exponents, strict=True))
-        return (
-            _GappedPolynomial.of((k, a) for k, a, _ in terms),
-            _GappedPolynomial.of((k - 2, a * e) for k, a, e in terms),
-        )
+        series = _GappedPolynomial.of((k, a) for k, a, _ in terms)
+        derivative = _GappedPolynomial.of((k - 2, a * e) for k, a, e in terms)
+        return series, derivative, _power_plan(series.steps | derivative.steps)
 
     def _series(self, tau: NDArray, slope: bool) -> tuple[NDArray, NDArray | None]:
         plan = self._in_sqrt_tau
@@ -207,8 +225,13 @@ class Wagner(VaporPressureEquation):
             series = sum(a * tau**e for a, e in zip(self.coefficients, self.exponents, strict=True))
             d = sum(a * e * tau ** (e - 1) for a, e in zip(self.coefficients, self.exponents, strict=True))
             return np.asarray(series), np.asarray(d) if slope else None
+        series, derivative, steps = plan
         r = np.sqrt(tau)
-        return plan[0](r), plan[1](r) if slope else None
+        powers = {1: r}
+        for k, half, odd in steps:
+            square = powers[half] * powers[half]
+            powers[k] = square * r if odd else square
+        return series(powers, r), derivative(powers, r) if slope else None
 
     def ln_pressure(self, temperature: NDArray) -> NDArray:
         tc = self.critical_temperature
