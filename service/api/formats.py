@@ -18,6 +18,7 @@ from typing import Any
 import numpy as np
 import orjson
 from flask import Response, request
+from numpy.typing import NDArray
 
 from service.api.jsonio import encode
 from service.api.problems import invalid
@@ -64,7 +65,7 @@ def _etag(body: bytes) -> str:
 
 
 def _tagged(body: bytes, mimetype: str, etag: str) -> Response:
-    headers = {"ETag": f'"{etag}"', "Cache-Control": CACHE_CONTROL, "Vary": "Accept"}
+    headers = [("ETag", f'"{etag}"'), ("Cache-Control", CACHE_CONTROL), ("Vary", "Accept")]
     # If-None-Match compares weakly (RFC 9110); most requests carry none, and skip parsing it.
     if "If-None-Match" in request.headers and request.if_none_match.contains_weak(etag):
         return Response(status=304, headers=headers)
@@ -102,30 +103,48 @@ class AnswerCache:
 def csv_columns(text: str) -> dict[str, dict[str, Any]]:
     """A CSV body as ``{name: {"value": array, "unit": code or None}}``, parsed in one numpy call.
 
-    The header names the columns, optionally with a unit: ``gauge_pressure [kPa]``.
+    The header names the columns, optionally with a unit: ``gauge_pressure [kPa]``. Every row
+    has as many cells as the header; the first row that has not is named in the refusal.
     """
-    lines = text.strip().splitlines()
-    if len(lines) < 2:
+    header, _, rows = text.strip().partition("\n")
+    if not rows.strip():
         raise invalid("body", "a CSV body has a header row and at least one row of numbers")
-    names = [h.strip() for h in lines[0].split(",")]
+    names = [h.strip() for h in header.split(",")]
     bare = [n.partition("[")[0].strip() for n in names]
     if len(set(bare)) != len(bare):
         raise invalid("body", "a CSV header names each column once")
+    cells_per_row = _commas_per_row(rows) + 1
+    short = np.flatnonzero(cells_per_row != len(names))
+    if short.size:
+        raise invalid(
+            "body",
+            f"every CSV row must have {len(names)} cells, as the header does; "
+            f"row {short[0] + 1} below the header has {cells_per_row[short[0]]}",
+        )
     try:  # orjson reads the cells as one JSON array of numbers: strict and fast
-        cells = orjson.loads("[" + ",".join(lines[1:]) + "]")
+        cells = orjson.loads("[" + rows.replace("\n", ",") + "]")
     except orjson.JSONDecodeError:
         cells = None
     if cells is None or not set(map(type, cells)) <= {int, float}:
         raise invalid("body", "every CSV cell below the header must be a number")
-    numbers = np.array(cells, dtype=float)
-    if numbers.size != len(names) * (len(lines) - 1):
-        raise invalid("body", f"every CSV row must have {len(names)} cells, as the header does")
-    table = numbers.reshape(-1, len(names))
+    table = np.array(cells, dtype=float).reshape(-1, len(names))
     columns = {}
-    for i, header in enumerate(names):
-        name, _, unit = header.partition("[")
+    for i, header_cell in enumerate(names):
+        name, _, unit = header_cell.partition("[")
         columns[name.strip()] = {"value": table[:, i].copy(), "unit": unit.rstrip("] ") or None}
     return columns
+
+
+def _commas_per_row(rows: str) -> NDArray[np.intp]:
+    """How many commas each line of ``rows`` holds, in a few passes of numpy over its bytes.
+
+    >>> _commas_per_row("1,2\\n3\\n,,").tolist()
+    [1, 0, 2]
+    """
+    data = np.frombuffer(rows.encode(), dtype=np.uint8)
+    running = np.cumsum(data == ord(","))
+    at_line_ends = np.append(running[data == ord("\n")], running[-1])
+    return np.diff(at_line_ends, prepend=0)
 
 
 def _number(value: float) -> str:

@@ -94,11 +94,21 @@ def test_csv_body_with_query_options_answers_json(client) -> None:
 
 @pytest.mark.parametrize(
     "text",
-    ["temperature\n", "temperature\nhot\n", "temperature,static_head\n1\n", "colour\n1\n", "\n"],
+    ["temperature\n", "temperature\nhot\n", "temperature,static_head\n1\n", "colour\n1\n", "\n", "temperature\nnull\n"],
 )
 def test_bad_csv_bodies(client, text: str) -> None:
     r = client.post("/v1/vapor-pressure", data=text, content_type="text/csv")
     assert r.status_code == 400, r.get_json()
+
+
+def test_csv_rows_with_too_many_or_too_few_cells_are_refused(client) -> None:
+    # Three cells and then one add up to two rows of two, but they are not: refused, naming the row.
+    r = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2,3\n4\n", content_type="text/csv")
+    assert r.status_code == 400 and "row 1 below the header has 3" in r.get_json()["detail"]
+    blank = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2\n\n3,4\n", content_type="text/csv")
+    assert blank.status_code == 400 and "row 2 below the header has 1" in blank.get_json()["detail"]
+    windows = client.post("/v1/boiling-point", data="pressure\r\n100\r\n50\r\n", content_type="text/csv")
+    assert windows.status_code == 200 and len(windows.get_json()["boiling_point"]["value"]) == 2
 
 
 def test_etag_and_not_modified(client) -> None:
