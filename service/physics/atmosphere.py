@@ -80,6 +80,11 @@ _V = np.where(_LINEAR, -_SAFE_LAPSE / _K, 0.0)
 _W = np.where(_LINEAR, 0.0, -_BASE_T / _K)
 _INVERSE_BASE_P = 1.0 / _BASE_P
 _UPPER_HEIGHTS = _BASE_HEIGHT[1:].tolist()  # [m'], ascending
+# Every layer base is a whole kilometre, so the layer of H follows from floor(H / 1 km) alone
+# (the division rounds correctly, so no H below a base reaches its kilometre): one lookup per
+# point, in a table of the kilometres from -6 (below -5 km) to 85 (above 86 km).
+_KM_OFFSET = 6
+_LAYER_OF_KM = np.array([bisect.bisect_right(_UPPER_HEIGHTS, 1e3 * km) for km in range(-_KM_OFFSET, 86)])
 _UPPER_PRESSURES = _BASE_P[:0:-1].tolist()  # [Pa], ascending
 # Table 8: M/M0 against geometric elevation, 80 to 86 km; 1 below 80 km.
 _RATIO_Z = np.arange(80_000.0, 86_001.0, 500.0)
@@ -133,10 +138,9 @@ def _layer_of_height(h: NDArray) -> NDArray[np.intp] | int:
         low, high = bisect.bisect_right(_UPPER_HEIGHTS, h.min()), bisect.bisect_right(_UPPER_HEIGHTS, h.max())
         if low == high:
             return low
-    index = np.zeros(h.shape, dtype=np.intp)
-    for base in _UPPER_HEIGHTS:
-        index += h >= base
-    return index
+    km = np.floor(h / 1e3).astype(np.intp)
+    km += _KM_OFFSET
+    return _LAYER_OF_KM.take(km, mode="clip")  # beyond the table: the bottom or top layer, as bisect says
 
 
 @blockwise

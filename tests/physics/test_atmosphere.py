@@ -114,3 +114,12 @@ def test_single_values_equal_array_elements_exactly() -> None:
     assert [atm.density_at_elevation(float(v)) for v in z] == atm.density_at_elevation(z).tolist()
     assert [atm.elevation_at_pressure(float(v)) for v in p] == atm.elevation_at_pressure(p).tolist()
     assert float(atm.pressure_at_elevation(0.0)) == atm.SEA_LEVEL_PRESSURE
+
+
+def test_layer_lookup_by_kilometre_agrees_with_the_bases() -> None:
+    # The lookup table assumes whole-kilometre bases; at each base, one ulp below and at the base.
+    assert all(h % 1000 == 0 for h in atm._BASE_HEIGHT)
+    below = np.nextafter(atm._BASE_HEIGHT[1:], -np.inf)
+    h = np.concatenate((below, atm._BASE_HEIGHT[1:], [-6000.0, 0.0, 90_000.0]))
+    expected = [int(np.searchsorted(atm._BASE_HEIGHT[1:], v, side="right")) for v in h]
+    assert atm._layer_of_height(h).tolist() == expected
