@@ -51,8 +51,8 @@ def free_port() -> int:
 
 
 @contextlib.contextmanager
-def gunicorn(port: int, **env: str) -> Iterator[str]:
-    """The service under gunicorn with docker/gunicorn.conf.py, as `make serve` starts it."""
+def gunicorn(port: int, **env: str) -> Iterator[tuple[str, int]]:
+    """The service under gunicorn with docker/gunicorn.conf.py, as `make serve` starts it: its URL and master pid."""
     environ = {**os.environ, "HOST": "127.0.0.1", "PORT": str(port), **env}
     process = subprocess.Popen(
         [
@@ -75,7 +75,7 @@ def gunicorn(port: int, **env: str) -> Iterator[str]:
             time.sleep(0.1)
         else:
             raise RuntimeError("gunicorn did not become ready")
-        yield base
+        yield base, process.pid
     finally:
         process.terminate()
         process.wait(timeout=30)

@@ -1,18 +1,22 @@
-"""HTTP benchmark: throughput and latency of single answers through `make serve`'s gunicorn.
+"""HTTP benchmark: throughput, latency and worker CPU of single answers through `make serve`'s gunicorn.
 
 wrk (Debian's package, installed here when missing) drives GET /healthz, GET
-/v1/boiling-point and GET /v1/atmosphere in one run on loopback, same server, same
-settings. Identical requests are served from each worker's answer cache, as a polling
-dashboard's are; a second boiling-point run varies the pressure on every request, so every
-answer is computed.
+/v1/boiling-point and GET /v1/atmosphere on loopback against one server started with
+docker/gunicorn.conf.py. The main rows change the numbers on every request (a dashboard
+polling live readings), so every answer is computed; the last rows repeat one request,
+which each worker then answers from its answer cache. The cases run in turn, three rounds
+over; each figure is the median of its rounds, and each ratio the median of the per-round
+ratios to /healthz, so that both sides of a ratio saw the same moments of a shared machine.
 
     python bench/throughput.py      (or: make bench-http)
 """
 
 from __future__ import annotations
 
+import os
 import re
 import shutil
+import statistics
 import subprocess
 import sys
 import tempfile
@@ -22,14 +26,37 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from bench.common import free_port, gunicorn, machine, write_section
 
-DURATION, THREADS, CONNECTIONS = "8s", 2, 32
-VARIED = """
-counter = 0
+DURATION, THREADS, CONNECTIONS, ROUNDS = "5s", 2, 32, 3
+
+
+def varied(path: str, template: str) -> str:
+    """A wrk script whose every request has other numbers: ``template`` gets ``n`` = 0, 1, 2, ..."""
+    query = template.replace("{n}", '" .. n .. "').replace("{n/100}", '" .. n / 100 .. "')
+    return f"""
+n = 0
 request = function()
-  counter = counter + 1
-  return wrk.format("GET", "/v1/boiling-point?gauge_pressure=" .. (counter % 100000) / 100 .. "&elevation=1420")
+  n = (n + 1) % 100000
+  return wrk.format("GET", "{path}?{query}")
 end
 """
+
+
+CASES = [  # name, path (with a fixed query), wrk script (varying the query) or None
+    ("GET /healthz", "/healthz", None),
+    (
+        "GET /v1/boiling-point, gauge + elevation, every request new",
+        "/v1/boiling-point",
+        varied("/v1/boiling-point", "gauge_pressure={n/100}&elevation=1420"),
+    ),
+    (
+        "GET /v1/boiling-point, absolute pressure, every request new",
+        "/v1/boiling-point",
+        varied("/v1/boiling-point", "pressure={n/100}"),
+    ),
+    ("GET /v1/atmosphere, every request new", "/v1/atmosphere", varied("/v1/atmosphere", "elevation={n/100}")),
+    ("GET /v1/boiling-point, one request repeated", "/v1/boiling-point?gauge_pressure=950&elevation=1420", None),
+    ("GET /v1/atmosphere, one request repeated", "/v1/atmosphere?elevation=1420", None),
+]
 
 
 def ensure_wrk() -> str:
@@ -39,15 +66,36 @@ def ensure_wrk() -> str:
     return shutil.which("wrk") or "wrk"
 
 
-def run_wrk(wrk: str, url: str, script: str | None = None) -> dict[str, float]:
+def worker_cpu_seconds(master: int) -> float:
+    """CPU time of gunicorn's workers so far, those recycled included (their time is the master's cutime)."""
+
+    def stat(pid: str) -> list[str]:  # the fields after the command name: state, ppid, ...
+        return Path(f"/proc/{pid}/stat").read_text().rpartition(")")[2].split()
+
+    total = 0
+    for pid in filter(str.isdigit, os.listdir("/proc")):
+        try:
+            fields = stat(pid)
+        except (FileNotFoundError, ProcessLookupError):  # gone meanwhile: counted in the master's cutime
+            continue
+        if fields[1] == str(master):
+            total += int(fields[11]) + int(fields[12])  # utime, stime
+    own = stat(str(master))
+    return (total + int(own[13]) + int(own[14])) / os.sysconf("SC_CLK_TCK")  # + cutime, cstime
+
+
+def run_wrk(wrk: str, url: str, script: str | None, master: int) -> dict[str, float]:
     command = [wrk, f"-t{THREADS}", f"-c{CONNECTIONS}", f"-d{DURATION}", "--latency", url]
     with tempfile.NamedTemporaryFile("w", suffix=".lua") as lua:
         if script:
             lua.write(script)
             lua.flush()
             command[1:1] = ["-s", lua.name]
+        cpu = worker_cpu_seconds(master)
         out = subprocess.run(command, check=True, capture_output=True, text=True).stdout
-    figures = {"rps": float(re.search(r"Requests/sec:\s+([\d.]+)", out).group(1))}
+        cpu = worker_cpu_seconds(master) - cpu
+    requests = float(re.search(r"(\d+) requests in", out).group(1))
+    figures = {"rps": float(re.search(r"Requests/sec:\s+([\d.]+)", out).group(1)), "cpu_us": cpu / requests * 1e6}
     errors = re.search(r"Non-2xx or 3xx responses: (\d+)", out)
     figures["errors"] = float(errors.group(1)) if errors else 0.0
     for pct in ("50", "90", "99"):
@@ -58,30 +106,29 @@ def run_wrk(wrk: str, url: str, script: str | None = None) -> dict[str, float]:
 
 def main() -> None:
     wrk = ensure_wrk()
-    cases = [
-        ("GET /healthz", "/healthz", None),
-        ("GET /v1/boiling-point (same request)", "/v1/boiling-point?gauge_pressure=950&elevation=1420", None),
-        ("GET /v1/atmosphere (same request)", "/v1/atmosphere?elevation=1420", None),
-        ("GET /v1/boiling-point (every request new)", "/v1/boiling-point", VARIED),
-    ]
-    with gunicorn(free_port()) as base:
-        results = {name: run_wrk(wrk, base + path, script) for name, path, script in cases}
+    rounds: list[dict[str, dict[str, float]]] = []
+    with gunicorn(free_port()) as (base, master):
+        for _ in range(ROUNDS):
+            rounds.append({name: run_wrk(wrk, base + path, script, master) for name, path, script in CASES})
     rows = [
-        "| request | requests/s | p50 ms | p90 ms | p99 ms | non-2xx |",
-        "| --- | ---: | ---: | ---: | ---: | ---: |",
+        "| request | requests/s | ratio to /healthz | worker CPU us/request | p50 ms | p90 ms | p99 ms | non-2xx |",
+        "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
     ]
-    for name, r in results.items():
+    for name, *_ in CASES:
+        runs = sorted((r[name] for r in rounds), key=lambda f: f["rps"])
+        middle = runs[len(runs) // 2]
+        ratio = statistics.median(r[name]["rps"] / r["GET /healthz"]["rps"] for r in rounds)
+        cpu = statistics.median(run["cpu_us"] for run in runs)
+        errors = sum(run["errors"] for run in runs)
         rows.append(
-            f"| {name} | {r['rps']:,.0f} | {r['p50']:.2f} | {r['p90']:.2f} | {r['p99']:.2f} | {r['errors']:.0f} |"
+            f"| {name} | {middle['rps']:,.0f} | {ratio:.2f} | {cpu:,.0f} | {middle['p50']:.2f} | "
+            f"{middle['p90']:.2f} | {middle['p99']:.2f} | {errors:.0f} |"
         )
-    health = results["GET /healthz"]["rps"]
-    same = results["GET /v1/boiling-point (same request)"]["rps"] / health
-    new = results["GET /v1/boiling-point (every request new)"]["rps"] / health
     rows += [
         "",
-        f"Ratio of boiling-point to healthz throughput: {same:.2f} for a repeated request (answer cache), "
-        f"{new:.2f} when every request is new. wrk -t{THREADS} -c{CONNECTIONS} -d{DURATION} on loopback; "
-        "gunicorn with docker/gunicorn.conf.py (workers: 2 per core + 1); wrk shares the 2 cores.",
+        f"wrk -t{THREADS} -c{CONNECTIONS} -d{DURATION} on loopback, {ROUNDS} rounds of all cases in turn; medians. "
+        "gunicorn with docker/gunicorn.conf.py (sync workers, 2 per core + 1); wrk shares the 2 cores. "
+        "Worker CPU is what the gunicorn workers spent per request, from /proc.",
     ]
     write_section("http", f"Measured {machine()}.\n\n" + "\n".join(rows))
 
