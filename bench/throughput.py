@@ -30,12 +30,13 @@ DURATION, THREADS, CONNECTIONS, ROUNDS = "5s", 2, 32, 3
 
 
 def varied(path: str, template: str) -> str:
-    """A wrk script whose every request has other numbers: ``template`` gets ``n`` = 0, 1, 2, ..."""
-    query = template.replace("{n}", '" .. n .. "').replace("{n/100}", '" .. n / 100 .. "')
+    """A wrk script whose every request has other numbers: ``{n/100}`` in ``template`` runs from 10 to 1010."""
+    query = template.replace("{n/100}", '" .. n / 100 .. "')
     return f"""
-n = 0
+count = 0
 request = function()
-  n = (n + 1) % 100000
+  count = count + 1
+  n = 1000 + count % 100000
   return wrk.format("GET", "{path}?{query}")
 end
 """
