@@ -22,7 +22,14 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.schema import FluidEntrySchema
 from service.physics import water
-from service.physics.correlations import Dippr105, ExtendedAntoine, VaporPressureEquation, Wagner, inverse_table
+from service.physics.correlations import (
+    Dippr105,
+    ExtendedAntoine,
+    InverseTable,
+    VaporPressureEquation,
+    Wagner,
+    inverse_table,
+)
 from service.physics.units import resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
@@ -90,7 +97,7 @@ class Fluid:
     tabulated: bool = True
     """Answer saturation temperatures from a table (catalog fluids) or by Newton (a request's own)."""
 
-    @property
+    @cached_property
     def temperature_limits(self) -> tuple[float, float]:
         """Where the equation may answer at all [K], extrapolation included.
 
@@ -101,7 +108,7 @@ class Fluid:
         low, high = self.equation.domain
         return max(self.triple_temperature, low, 0.5 * self.t_min), min(self.critical_temperature, high, 2 * self.t_max)
 
-    @property
+    @cached_property
     def stated_range(self) -> tuple[float, float]:
         """The equation's stated temperature range [K], within :attr:`temperature_limits`."""
         low, high = self.temperature_limits
@@ -136,9 +143,14 @@ class Fluid:
         Catalog fluids answer from an :class:`InverseTable` built on first use; a fluid
         defined in a request, used once, runs the Newton iteration directly.
         """
-        if self.tabulated:  # shared with service.physics.water for the IAPWS equation
-            return inverse_table(self.equation, *self.temperature_limits)(pressure)
+        if self.tabulated:
+            return self._inverse_table(pressure)
         return self.equation.temperature(pressure, *self.temperature_limits)
+
+    @cached_property
+    def _inverse_table(self) -> InverseTable:
+        """The saturation-temperature table, shared with :mod:`service.physics.water` for the IAPWS equation."""
+        return inverse_table(self.equation, *self.temperature_limits)
 
     @cached_property
     def pressure_limits(self) -> tuple[float, float]:

@@ -181,7 +181,10 @@ def pressure_at_elevation(
     else:
         linear = _B.take(i) * np.log(_RELATIVE_ALPHA.take(i) + _RELATIVE_LAPSE.take(i) * h)
         ln_ratio = linear + (_C.take(i) * h + _D.take(i))
-    return _BASE_P.take(i) * np.exp(ln_ratio) * (sea_level_pressure / SEA_LEVEL_PRESSURE)
+    pressure = _BASE_P.take(i) * np.exp(ln_ratio)
+    if isinstance(sea_level_pressure, float) and sea_level_pressure == SEA_LEVEL_PRESSURE:
+        return pressure  # a standard day: the scale is exactly 1, and multiplying by it changes nothing
+    return pressure * (sea_level_pressure / SEA_LEVEL_PRESSURE)
 
 
 @blockwise

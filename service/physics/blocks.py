@@ -10,6 +10,7 @@ the same floats, and scalar arithmetic skips most of numpy's per-call array mach
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable
 from functools import wraps
 
@@ -30,16 +31,23 @@ def in_blocks(func: Callable[..., NDArray], *args: ArrayLike) -> NDArray[np.floa
     """
     if all(isinstance(a, float) for a in args):  # single values (numpy's float64 is a float too)
         return func(*map(np.float64, args))
-    arrays = [np.asarray(a, dtype=float) for a in args]
-    if max(a.size for a in arrays) <= BLOCK:
-        return func(*arrays)  # small: numpy broadcasts inside, nothing to split
-    arrays = np.broadcast_arrays(*arrays)
-    shape = arrays[0].shape
-    flat = [a.reshape(-1) for a in arrays]
-    out = np.empty(flat[0].size)
+    values = [_single_or_array(a) for a in args]
+    arrays = [v for v in values if isinstance(v, np.ndarray)]
+    if not arrays or max(a.size for a in arrays) <= BLOCK:
+        return func(*values)  # small: numpy broadcasts inside, nothing to split
+    shape = np.broadcast_shapes(*(a.shape for a in arrays))
+    # Arrays are spread to the common shape; single values stay single and meet every block as they are.
+    flat = [np.broadcast_to(v, shape).reshape(-1) if isinstance(v, np.ndarray) else v for v in values]
+    out = np.empty(math.prod(shape))
     for start in range(0, out.size, BLOCK):
-        out[start : start + BLOCK] = func(*(a[start : start + BLOCK] for a in flat))
+        out[start : start + BLOCK] = func(*(v[start : start + BLOCK] if isinstance(v, np.ndarray) else v for v in flat))
     return out.reshape(shape)
+
+
+def _single_or_array(value: ArrayLike) -> NDArray[np.float64] | np.float64:
+    """``value`` as a float array, or as a numpy scalar when it is a single number."""
+    array = np.asarray(value, dtype=float)
+    return array[()] if array.ndim == 0 else array
 
 
 def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]]:
