@@ -103,6 +103,23 @@ def reference_ns_per_point() -> dict[str, float]:
     return {name: best_seconds(f, 2.0) / 2000 * 1e9 for name, f in cases.items()}
 
 
+def verdicts(rows: list[dict[str, float | str]], reference: dict[str, float], loops: str) -> list[str]:
+    """The targets at 1e6 points, one line each: within 5x of numpy.log, and 1,000x the reference library."""
+    lines = [
+        f"Targets at 1e6 points, {loops} (within {TARGET_RATIO:g}x of numpy.log; "
+        f"{TARGET_SPEED_UP:,.0f}x the reference):"
+    ]
+    for r in (row for row in rows if row["n"] == 1_000_000):
+        ratio = float(r["ours"]) / float(r["log"])
+        line = f"- {r['name']}: {ratio:.2f}x numpy.log ({'met' if ratio <= TARGET_RATIO else 'not met'})"
+        ref = reference.get(str(r["name"]).split(",")[0])
+        if ref and loops == "this CPU's loops":  # the reference runs once, with this CPU's loops
+            speed_up = ref / float(r["ours"])
+            line += f"; {speed_up:,.0f}x the reference ({'met' if speed_up >= TARGET_SPEED_UP else 'not met'})"
+        lines.append(line)
+    return lines
+
+
 def log_loop() -> str:
     """The loop numpy.log runs for float64 here, e.g. X86_V4 (AVX-512) or X86_V3 (AVX2)."""
     return opt_func_info("log", "float64")["log"]["dd"]["current"]
@@ -140,6 +157,7 @@ def main() -> None:
         "The atmosphere uses one layer's constants for a block whose points all lie in that layer (sorted "
         "arrays, a site's readings); the shuffled rows show blocks that mix layers.",
     ]
+    notes += ["", *verdicts(native, reference, "this CPU's loops")]
     if log_loop() == "X86_V4":
         child = subprocess.run(
             [sys.executable, __file__, "--json"],
@@ -160,6 +178,8 @@ def main() -> None:
                 f"| {r['name']} | {r['ours']:.1f} | {r['log']:.1f} | {r['ours'] / r['log']:.2f} |"
                 for r in portable["rows"]
             ),
+            "",
+            *verdicts(portable["rows"], reference, "AVX2 loops"),
         ]
     write_section("physics", f"Measured {machine()}.\n\n" + "\n".join(rows + notes))
 

@@ -196,7 +196,8 @@ def as_csv(body: dict[str, Any]) -> str:
     cells = [_cells(c) for c in columns]
     rows = max((len(c) for c in cells if len(c) != 1), default=1)  # single values repeat down the column
     cells = [c * rows if len(c) == 1 else c for c in cells]
-    out.write("".join(line + "\n" for line in map(",".join, zip(*cells, strict=True))))
+    if rows:
+        out.write("\n".join(map(",".join, zip(*cells, strict=True))) + "\n")
     return out.getvalue()
 
 
