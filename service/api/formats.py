@@ -30,7 +30,7 @@ def chosen_format(requested: str | None, offered: Iterable[str]) -> str:
     """``requested`` if given, else the best of ``offered`` for the Accept header (JSON on a tie)."""
     if requested:
         return requested
-    if request.headers.get("Accept", "*/*") == "*/*":  # no preference: JSON, without parsing the header
+    if request.environ.get("HTTP_ACCEPT", "*/*") == "*/*":  # no preference: JSON, without parsing the header
         return "json"
     types = [MEDIA_TYPES["json"], *(MEDIA_TYPES[f] for f in offered if f != "json")]
     best = request.accept_mimetypes.best_match(types, default=MEDIA_TYPES["json"])
@@ -67,7 +67,7 @@ def _etag(body: bytes) -> str:
 def _tagged(body: bytes, mimetype: str, etag: str) -> Response:
     headers = [("ETag", f'"{etag}"'), ("Cache-Control", CACHE_CONTROL), ("Vary", "Accept")]
     # If-None-Match compares weakly (RFC 9110); most requests carry none, and skip parsing it.
-    if "If-None-Match" in request.headers and request.if_none_match.contains_weak(etag):
+    if "HTTP_IF_NONE_MATCH" in request.environ and request.if_none_match.contains_weak(etag):
         return Response(status=304, headers=headers)
     return Response(body, mimetype=mimetype, headers=headers)
 
@@ -86,7 +86,7 @@ class AnswerCache:
 
     def answer(self, compute: Callable[[], tuple[bytes, str]]) -> Response:
         """The response to this GET: ``compute()`` gives its body and media type, unless a recent answer stands."""
-        key = (request.path, request.query_string, request.headers.get("Accept", ""))
+        key = (request.path, request.query_string, request.environ.get("HTTP_ACCEPT", ""))
         hit = self._answers.get(key)
         if hit is None:
             content, mimetype = compute()

@@ -45,7 +45,7 @@ class Input:
     required: bool = False
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, slots=True)
 class Inputs:
     """A parsed request: SI arrays of one shape, units, and the other options."""
 
@@ -126,20 +126,18 @@ class Operation:
         loaded = self._loaders[kind].load(data)
         units = {d: loaded.pop(f"{d}_unit", None) or default_unit(d) for d in self.dimensions}
         values: dict[str, NDArray[np.float64]] = {}
-        with np.errstate(over="ignore"):  # an overflow shows as a non-finite value, refused below
-            for name, spec in self.inputs.items():
-                raw = loaded.pop(name, None)
-                if raw is None:
-                    continue
-                given = raw if isinstance(raw, Quantity) else Quantity(np.float64(raw))
-                unit = given.unit or units[spec.dimension]
-                values[name] = si = unit.to_si(given.value)
-                if not all_finite(si):
-                    raise Problem(
-                        422,
-                        f"{name}: a value is too large to be a {spec.dimension} in SI units.",
-                        {name: ["beyond the range of double-precision numbers once converted to SI"]},
-                    )
+        for name, spec in self.inputs.items():
+            raw = loaded.pop(name, None)
+            if raw is None:
+                continue
+            given = raw if isinstance(raw, Quantity) else Quantity(raw)
+            values[name] = si = _in_si(given.value, given.unit or units[spec.dimension])
+            if not all_finite(si):
+                raise Problem(
+                    422,
+                    f"{name}: a value is too large to be a {spec.dimension} in SI units.",
+                    {name: ["beyond the range of double-precision numbers once converted to SI"]},
+                )
         shape = _broadcast_shape(values)
         limit = current_app.config["MAX_POINTS"]
         size = math.prod(shape)
@@ -202,6 +200,18 @@ class Operation:
         OPERATIONS.append(self)
 
 
+def _in_si(value: NDArray[np.float64] | float, unit: Unit) -> NDArray[np.float64]:
+    """``value`` converted from ``unit`` to SI: an array, or a single value as a numpy scalar.
+
+    A value too large for SI comes out infinite (refused by the caller): Python's float arithmetic
+    does so silently, and numpy's is told to.
+    """
+    if isinstance(value, np.ndarray):
+        with np.errstate(over="ignore"):
+            return unit.to_si(value)
+    return np.float64(unit.to_si(float(value)))
+
+
 def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
     shapes = {name: v.shape for name, v in values.items()}
     if not any(shapes.values()):
@@ -220,11 +230,12 @@ def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
 
 def query_args() -> dict[str, str]:
     """The query string as a dict; a parameter given twice is refused."""
-    args = request.args
-    for key in args:
-        if len(args.getlist(key)) > 1:
-            raise invalid(key, "given more than once")
-    return args.to_dict()
+    pairs = list(request.args.items(multi=True))
+    args = dict(pairs)
+    if len(args) < len(pairs):
+        repeated = next(key for key in args if len(request.args.getlist(key)) > 1)
+        raise invalid(repeated, "given more than once")
+    return args
 
 
 def _json_body(query: dict[str, Any]) -> dict[str, Any]:

@@ -22,7 +22,7 @@ class Quantity:
 
 
 def finite_numbers(value: Any) -> NDArray[np.float64]:
-    """A number as a numpy float, or a flat list (or float array, from CSV) of numbers as a float array.
+    """A number as a float, or a flat list (or float array, from CSV) of numbers as a float array.
 
     Anything else, or a number that is not finite, raises ValidationError.
     """
@@ -33,7 +33,7 @@ def finite_numbers(value: Any) -> NDArray[np.float64]:
     elif isinstance(value, list) and not set(map(type, value)) <= {int, float}:
         raise ValidationError("an array must hold numbers only")
     else:
-        array = np.asarray(value, dtype=float) if isinstance(value, list) else np.float64(value)
+        array = np.asarray(value, dtype=float) if isinstance(value, list) else float(value)
     if not all_finite(array):
         raise ValidationError("numbers must be finite")
     return array

@@ -9,10 +9,10 @@ pure scales; temperature scales carry an offset. Factors are exact by definition
 - 1 inHg = 3386.389 Pa (conventional, 32 degF column; NIST SP 811, appendix B.8);
 - 1 ft = 0.3048 m (international foot, 1959).
 
->>> resolve_unit("psi", "pressure").to_si(14.6959487755).round(3)
-np.float64(101325.0)
->>> resolve_unit("degF", "temperature").from_si(373.15).round(6)
-np.float64(212.0)
+>>> round(resolve_unit("psi", "pressure").to_si(14.6959487755), 3)
+101325.0
+>>> round(resolve_unit("degF", "temperature").from_si(373.15), 6)
+212.0
 """
 
 from __future__ import annotations
@@ -45,8 +45,8 @@ class Unit:
 
 
 def _numbers(value: ArrayLike) -> NDArray[np.float64]:
-    """``value`` as float64: an array, or a numpy scalar as it is (scalar arithmetic is cheaper, same floats)."""
-    return value if isinstance(value, np.float64 | np.ndarray) else np.asarray(value, dtype=float)
+    """``value`` as float64: an array, or a single float as it is (scalar arithmetic is cheaper, same floats)."""
+    return value if isinstance(value, float | np.ndarray) else np.asarray(value, dtype=float)
 
 
 _ATM = 101_325.0
