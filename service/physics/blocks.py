@@ -5,7 +5,10 @@ memory; over blocks of 16 384 points the temporaries stay in the CPU cache and t
 runs several times faster. Results are identical: every element sees the same operations.
 
 Single values go through as numpy scalars rather than 0-d arrays: the same ufunc loops give
-the same floats, and scalar arithmetic skips most of numpy's per-call array machinery.
+the same floats, and scalar arithmetic skips most of numpy's per-call array machinery. That
+holds for numpy's functions only: Python's ``**`` on a numpy scalar calls the C library's
+``pow``, which may differ from numpy's loops in the last bit, so the physics writes
+``np.power`` and ``np.square`` instead.
 """
 
 from __future__ import annotations

@@ -222,8 +222,8 @@ class Wagner(VaporPressureEquation):
     def _series(self, tau: NDArray, slope: bool) -> tuple[NDArray, NDArray | None]:
         plan = self._in_sqrt_tau
         if plan is None:
-            series = sum(a * tau**e for a, e in zip(self.coefficients, self.exponents, strict=True))
-            d = sum(a * e * tau ** (e - 1) for a, e in zip(self.coefficients, self.exponents, strict=True))
+            series = sum(a * np.power(tau, e) for a, e in zip(self.coefficients, self.exponents, strict=True))
+            d = sum(a * e * np.power(tau, e - 1) for a, e in zip(self.coefficients, self.exponents, strict=True))
             return np.asarray(series), np.asarray(d) if slope else None
         series, derivative, steps = plan
         r = np.sqrt(tau)
@@ -275,16 +275,16 @@ class ExtendedAntoine(VaporPressureEquation):
         if self.e:
             ln_p = ln_p + self.e * np.log(temperature)
         if self.f:
-            ln_p = ln_p + self.f * temperature**self.g
+            ln_p = ln_p + self.f * np.power(temperature, self.g)
         return ln_p
 
     def ln_pressure_and_slope(self, temperature: NDArray) -> tuple[NDArray, NDArray]:
         shifted = temperature + self.c
-        ln_p, d_ln_p = self.ln_pressure(temperature), -self.b / shifted**2 + self.d
+        ln_p, d_ln_p = self.ln_pressure(temperature), -self.b / np.square(shifted) + self.d
         if self.e:
             d_ln_p = d_ln_p + self.e / temperature
         if self.f:
-            d_ln_p = d_ln_p + self.f * self.g * temperature ** (self.g - 1.0)
+            d_ln_p = d_ln_p + self.f * self.g * np.power(temperature, self.g - 1.0)
         return ln_p, d_ln_p
 
 
@@ -312,4 +312,4 @@ class Dippr105:
     def molar_density(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Saturated-liquid molar density [mol/m3] at ``temperature`` [K], below C."""
         tau = 1.0 - np.asarray(temperature, dtype=float) / self.c
-        return self.a / self.b ** (1.0 + tau**self.d)
+        return self.a / np.power(self.b, 1.0 + np.power(tau, self.d))

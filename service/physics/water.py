@@ -60,7 +60,7 @@ class _WaterSaturation(Wagner):
         f = n1 * beta2 + n4 * beta + n7
         g = n2 * beta2 + n5 * beta + n8
         d = 2 * g / (-f - np.sqrt(np.maximum(f * f - 4 * e * g, 0.0)))
-        return 0.5 * (n10 + d - np.sqrt(np.maximum((n10 + d) ** 2 - 4 * (n9 + n10 * d), 0.0)))
+        return 0.5 * (n10 + d - np.sqrt(np.maximum(np.square(n10 + d) - 4 * (n9 + n10 * d), 0.0)))
 
 
 SATURATION = _WaterSaturation(
@@ -122,5 +122,5 @@ def saturated_liquid_density(temperature: ArrayLike) -> NDArray[np.float64]:
     tau = 1.0 - np.asarray(temperature, dtype=float) / CRITICAL_TEMPERATURE
     total = np.ones_like(tau)
     for b, e in zip(_LIQUID_B, _LIQUID_EXPONENTS, strict=True):
-        total += b * tau**e
+        total += b * np.power(tau, e)
     return CRITICAL_DENSITY * total

@@ -173,3 +173,22 @@ def test_every_fluid_table_reproduces_the_newton_inverse() -> None:
         p = np.geomspace(low, high, 2001)
         exact = fluid.equation.temperature(p, *fluid.temperature_limits)
         assert np.max(np.abs(fluid.saturation_temperature(p) - exact)) < 1e-8, fluid.id
+
+
+def test_every_fluid_gives_single_values_the_floats_of_an_array() -> None:
+    # A single value and the same value inside an array must answer alike, to the bit, for every
+    # catalog equation: saturation pressure, its slope, the inverse table, the liquid density.
+    rng = np.random.default_rng(58)
+    for fluid in load_catalog().fluids.values():
+        t = rng.uniform(*fluid.stated_range, 60)
+        p = fluid.saturation_pressure(t)
+        checks = [
+            (fluid.saturation_pressure, t),
+            (fluid.saturation_pressure_slope, t),
+            (fluid.saturation_temperature, p),
+        ]
+        if fluid.liquid_density is not None:
+            low, high = fluid.liquid_density.t_min, fluid.liquid_density.t_max
+            checks.append((fluid.liquid_density.density, rng.uniform(low, high, 60)))
+        for function, values in checks:
+            assert [function(float(v)) for v in values] == function(values).tolist(), (fluid.id, function)
