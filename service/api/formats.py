@@ -104,9 +104,10 @@ def csv_columns(text: str) -> dict[str, dict[str, Any]]:
     """A CSV body as ``{name: {"value": array, "unit": code or None}}``, parsed in one numpy call.
 
     The header names the columns, optionally with a unit: ``gauge_pressure [kPa]``. Every row
-    has as many cells as the header; the first row that has not is named in the refusal.
+    has as many cells as the header; the first row that has not is named in the refusal. Rows
+    end with LF, CRLF or a bare CR (spreadsheets write all three).
     """
-    header, _, rows = text.strip().partition("\n")
+    header, _, rows = text.replace("\r\n", "\n").replace("\r", "\n").strip().partition("\n")
     if not rows.strip():
         raise invalid("body", "a CSV body has a header row and at least one row of numbers")
     names = [h.strip() for h in header.split(",")]
@@ -114,12 +115,13 @@ def csv_columns(text: str) -> dict[str, dict[str, Any]]:
     if len(set(bare)) != len(bare):
         raise invalid("body", "a CSV header names each column once")
     cells_per_row = _commas_per_row(rows) + 1
-    short = np.flatnonzero(cells_per_row != len(names))
-    if short.size:
+    misfits = np.flatnonzero(cells_per_row != len(names))
+    if misfits.size:
+        row = misfits[0]
         raise invalid(
             "body",
-            f"every CSV row must have {len(names)} cells, as the header does; "
-            f"row {short[0] + 1} below the header has {cells_per_row[short[0]]}",
+            f"every CSV row must have as many cells as the header ({len(names)}); "
+            f"row {row + 1} below the header has {cells_per_row[row]}",
         )
     try:  # orjson reads the cells as one JSON array of numbers: strict and fast
         cells = orjson.loads("[" + rows.replace("\n", ",") + "]")
@@ -136,15 +138,15 @@ def csv_columns(text: str) -> dict[str, dict[str, Any]]:
 
 
 def _commas_per_row(rows: str) -> NDArray[np.intp]:
-    """How many commas each line of ``rows`` holds, in a few passes of numpy over its bytes.
+    """How many commas each line of ``rows`` holds, from where its commas and line ends lie.
 
     >>> _commas_per_row("1,2\\n3\\n,,").tolist()
     [1, 0, 2]
     """
     data = np.frombuffer(rows.encode(), dtype=np.uint8)
-    running = np.cumsum(data == ord(","))
-    at_line_ends = np.append(running[data == ord("\n")], running[-1])
-    return np.diff(at_line_ends, prepend=0)
+    commas = np.flatnonzero(data == ord(","))
+    line_ends = np.append(np.flatnonzero(data == ord("\n")), data.size)
+    return np.diff(np.searchsorted(commas, line_ends), prepend=0)
 
 
 def _number(value: float) -> str:

@@ -136,8 +136,10 @@ def test_csv_rows_with_too_many_or_too_few_cells_are_refused(client) -> None:
     assert r.status_code == 400 and "row 1 below the header has 3" in r.get_json()["detail"]
     blank = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2\n\n3,4\n", content_type="text/csv")
     assert blank.status_code == 400 and "row 2 below the header has 1" in blank.get_json()["detail"]
-    windows = client.post("/v1/boiling-point", data="pressure\r\n100\r\n50\r\n", content_type="text/csv")
-    assert windows.status_code == 200 and len(windows.get_json()["boiling_point"]["value"]) == 2
+    for ending in ("\r\n", "\r"):  # Windows, and old Mac spreadsheets
+        body = f"pressure{ending}100{ending}50{ending}"
+        answer = client.post("/v1/boiling-point", data=body, content_type="text/csv")
+        assert answer.status_code == 200 and len(answer.get_json()["boiling_point"]["value"]) == 2, ending
 
 
 def test_etag_and_not_modified(client) -> None:
