@@ -77,7 +77,7 @@ class AnswerCache:
 
     Keyed by path, query string and Accept header; holds ``size`` answers, least recently
     used out first. Refusals are not kept: they raise before anything is stored. Every
-    answer, cached or not, carries its ETag and Cache-Control (:func:`cacheable`).
+    answer, cached or not, carries its ETag and Cache-Control (:func:`_tagged`).
     """
 
     def __init__(self, size: int) -> None:

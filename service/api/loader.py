@@ -13,15 +13,24 @@ from __future__ import annotations
 from collections.abc import Mapping
 from typing import Any
 
-from marshmallow import Schema, ValidationError, missing
+from marshmallow import RAISE, Schema, ValidationError, missing
 
 
 class FieldLoader:
-    """``schema.load`` for a schema of plain fields: no hooks, no data keys, unknown keys refused."""
+    """``schema.load`` for a schema of plain fields: no hooks, data keys or attributes; unknown keys refused."""
 
     def __init__(self, schema: Schema) -> None:
-        if any(schema._hooks.values()) or any(f.data_key for f in schema.load_fields.values()):
-            raise TypeError(f"{type(schema).__name__} has hooks or data keys: load it with Schema.load")
+        plain = (
+            not any(schema._hooks.values())  # marshmallow keeps pre/post_load and validates_schema hooks here
+            and not any(f.data_key or f.attribute for f in schema.load_fields.values())
+            and schema.unknown == RAISE
+            and not schema.many
+        )
+        if not plain:
+            raise TypeError(
+                f"{type(schema).__name__} has hooks, data keys, attributes, many=True or a lenient "
+                "`unknown`: load it with Schema.load"
+            )
         self.fields = dict(schema.load_fields)
         self.unknown_message = schema.error_messages["unknown"]
         self.required = [name for name, f in self.fields.items() if f.required]

@@ -11,7 +11,7 @@ from marshmallow import fields, validate
 from service.api import schemas
 from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.operations import Input, Inputs, Operation
-from service.api.quantities import DENSITY, difference, quantity
+from service.api.quantities import DENSITY, any_true, difference, quantity
 from service.api.rules import (
     GRAVITY,
     PRESSURE_INPUTS,
@@ -76,7 +76,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
     check_liquid_temperature(fluid, temperature, t_unit, extrapolate, warnings)
     density = require_liquid_density(fluid)
     outside = (temperature < density.t_min) | (temperature > density.t_max)
-    if outside.any():
+    if any_true(outside):
         where = f"the stated range of the {density.method} for {fluid.name}, {{limit}}"
         if not extrapolate:
             refuse_outside("temperature", temperature, t_unit, density.t_min, density.t_max, where, where)
@@ -92,7 +92,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
     rho = density.density(temperature)
     static = inputs.values["static_head"]
     npsh = (local.value - vapor) / (rho * GRAVITY) + static - friction
-    if (local.value < vapor).any():
+    if any_true(local.value < vapor):
         warnings.append(
             "The surface pressure is below the liquid's vapor pressure: the liquid boils at the "
             "surface, and no pump suction from it is free of vapor."

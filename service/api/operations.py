@@ -22,7 +22,7 @@ from werkzeug.exceptions import BadRequest
 from service.api.formats import chosen_format, csv_columns, render, respond
 from service.api.loader import FieldLoader
 from service.api.problems import Problem, invalid
-from service.api.quantities import Quantity, QuantityField, UnitField, all_finite
+from service.api.quantities import Numbers, Quantity, QuantityField, UnitField, all_finite
 from service.physics.units import Dimension, Unit, default_unit, resolve_unit
 
 UNIT_DESCRIPTIONS = {
@@ -200,7 +200,7 @@ class Operation:
         OPERATIONS.append(self)
 
 
-def _in_si(value: NDArray[np.float64] | float, unit: Unit) -> NDArray[np.float64]:
+def _in_si(value: Numbers, unit: Unit) -> NDArray[np.float64] | np.float64:
     """``value`` converted from ``unit`` to SI: an array, or a single value as a numpy scalar.
 
     A value too large for SI comes out infinite (refused by the caller): Python's float arithmetic

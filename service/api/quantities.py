@@ -12,16 +12,19 @@ from numpy.typing import NDArray
 
 from service.physics.units import Dimension, Unit, codes, resolve_unit
 
+Numbers = NDArray[np.float64] | float
+"""An array of numbers, or a single number (a float or a numpy scalar)."""
+
 
 @dataclass(frozen=True)
 class Quantity:
     """Numbers as sent, with the unit the request gave them (None: the request's default)."""
 
-    value: NDArray[np.float64]
+    value: Numbers
     unit: Unit | None = None
 
 
-def finite_numbers(value: Any) -> NDArray[np.float64]:
+def finite_numbers(value: Any) -> Numbers:
     """A number as a float, or a flat list (or float array, from CSV) of numbers as a float array.
 
     Anything else, or a number that is not finite, raises ValidationError.
@@ -39,9 +42,23 @@ def finite_numbers(value: Any) -> NDArray[np.float64]:
     return array
 
 
-def all_finite(value: NDArray | float) -> bool:
+# A single value is a float (a numpy scalar, mostly); these answer it without a numpy reduction,
+# which costs microseconds on a scalar.
+
+
+def all_finite(value: Numbers) -> bool:
     """Whether a number, or every number of an array, is finite."""
     return math.isfinite(value) if isinstance(value, float) else bool(np.isfinite(value).all())
+
+
+def any_true(mask: NDArray[np.bool_] | bool) -> bool:
+    """Whether any element of a boolean array, or a single boolean, is true."""
+    return bool(mask.any()) if isinstance(mask, np.ndarray) else bool(mask)
+
+
+def largest(values: Numbers, empty: float) -> float:
+    """The largest of the numbers, or ``empty`` when an array has none."""
+    return float(values.max(initial=empty)) if isinstance(values, np.ndarray) else float(values)
 
 
 class UnitField(fields.String):
@@ -89,22 +106,22 @@ DENSITY = Unit("kg/m3", "density", 1.0)  # type: ignore[arg-type]
 """The one unit densities are given in."""
 
 
-def quantity(value_si: NDArray | float, unit: Unit) -> dict[str, Any]:
+def quantity(value_si: Numbers, unit: Unit) -> dict[str, Any]:
     """``{"value", "unit"}`` for an SI value or array, converted to ``unit``."""
     return {"value": _plain(unit.from_si(value_si)), "unit": unit.code}
 
 
-def ratio(value_si: NDArray | float, top: Unit, bottom: Unit) -> dict[str, Any]:
+def ratio(value_si: Numbers, top: Unit, bottom: Unit) -> dict[str, Any]:
     """A slope such as dT/dp as ``{"value", "unit": "degC/kPa"}``; temperatures count as differences."""
     return {"value": _plain(value_si * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
 
 
-def difference(value_kelvin: NDArray | float, unit: Unit) -> dict[str, Any]:
+def difference(value_kelvin: Numbers, unit: Unit) -> dict[str, Any]:
     """A temperature difference [K] as ``{"value", "unit"}``: in K for K and degC, degR for degF and degR."""
     return {"value": _plain(value_kelvin / unit.scale), "unit": "K" if unit.scale == 1.0 else "degR"}
 
 
-def _plain(value: NDArray | float) -> float | NDArray:
+def _plain(value: Numbers) -> Numbers:
     """A float, or the array itself: orjson writes float arrays directly, with no list in between."""
     return np.ascontiguousarray(value) if isinstance(value, np.ndarray) and value.ndim else float(value)
 

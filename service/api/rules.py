@@ -15,7 +15,7 @@ from numpy.typing import NDArray
 
 from service.api.operations import Input, Inputs
 from service.api.problems import Problem
-from service.api.quantities import format_value
+from service.api.quantities import any_true, format_value
 from service.fluids.catalog import Catalog, Fluid, LiquidDensity
 from service.physics import atmosphere
 from service.physics.units import Unit
@@ -64,11 +64,6 @@ def resolve_catalog_fluid(name: str) -> Fluid:
             {"fluid": [f"unknown fluid {name!r}"]},
         )
     return fluid
-
-
-def any_true(mask: NDArray[np.bool_] | bool) -> bool:
-    """Whether any element of a boolean array, or a single boolean, is true (the latter without a reduction)."""
-    return bool(mask.any()) if isinstance(mask, np.ndarray) else bool(mask)
 
 
 def refuse_outside(

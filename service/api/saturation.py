@@ -4,14 +4,13 @@ from __future__ import annotations
 
 from typing import Any
 
-import numpy as np
 from flask import Blueprint
 
 from service.api import schemas
 from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.operations import Input, Inputs, Operation
 from service.api.problems import Problem
-from service.api.quantities import difference, quantity, ratio
+from service.api.quantities import difference, largest, quantity, ratio
 from service.api.rules import (
     GRAVITY,
     PRESSURE_INPUTS,
@@ -74,8 +73,7 @@ def boiling_point(inputs: Inputs) -> dict[str, Any]:
         answer["boiling_point_uncertainty"] = difference(slope * uncertainty, t_unit)
     note = local.note
     if local.standard_day:
-        shifts = slope * WEATHER_SPREAD * local.atmosphere
-        spread = difference(float(shifts.max(initial=0.0) if isinstance(shifts, np.ndarray) else shifts), t_unit)
+        spread = difference(largest(slope * WEATHER_SPREAD * local.atmosphere, empty=0.0), t_unit)
         note = (
             f"{note} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
             f"boiling point by about {spread['value']:.2g} {spread['unit']}."

@@ -7,7 +7,8 @@ height), (23) (molecular-scale temperature), (33a) and (33b) (pressure), (42)
 model is identical to ISO 2533:1975 and the ICAO standard atmosphere.
 
 All inputs and outputs are SI: geometric elevation [m], geopotential height [m'],
-pressure [Pa], temperature [K], density [kg/m3]. Functions take and return numpy arrays.
+pressure [Pa], temperature [K], density [kg/m3]. Functions take and return numpy arrays, or numpy
+scalars for single values.
 
 >>> float(pressure_at_elevation(0.0))
 101325.0
@@ -82,7 +83,7 @@ _INVERSE_BASE_P = 1.0 / _BASE_P
 _UPPER_HEIGHTS = _BASE_HEIGHT[1:].tolist()  # [m'], ascending
 # Every layer base is a whole kilometre, so the layer of H follows from floor(H / 1 km) alone
 # (the division rounds correctly, so no H below a base reaches its kilometre): one lookup per
-# point, in a table of the kilometres from -6 (below -5 km) to 85 (above 86 km).
+# point, in a table of the geopotential kilometres from -6 (below -5 km) to 85 (above the top).
 _KM_OFFSET = 6
 _LAYER_OF_KM = np.array([bisect.bisect_right(_UPPER_HEIGHTS, 1e3 * km) for km in range(-_KM_OFFSET, 86)])
 _UPPER_PRESSURES = _BASE_P[:0:-1].tolist()  # [Pa], ascending
@@ -125,7 +126,7 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
     return EARTH_RADIUS * h / (EARTH_RADIUS - h)
 
 
-def _layer_of_height(h: NDArray) -> NDArray[np.intp] | int:
+def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | int:
     """Index of the layer holding each geopotential height: how many upper bases lie at or below it.
 
     When every height lies in one layer (a single value, a site's elevations, a
@@ -200,7 +201,7 @@ def density_at_elevation(
     return pressure_at_elevation(elevation, sea_level_pressure) * MOLAR_MASS_AIR / (GAS_CONSTANT * t_m)
 
 
-def _layer_of_pressure(p: NDArray) -> NDArray[np.intp] | int:
+def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | int:
     """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure.
 
     One index when all share a layer, as in :func:`_layer_of_height`.

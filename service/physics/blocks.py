@@ -24,7 +24,7 @@ BLOCK = 16_384
 """Points per block: 128 KiB per float64 temporary, inside a typical L2 cache."""
 
 
-def in_blocks(func: Callable[..., NDArray], *args: ArrayLike) -> NDArray[np.float64]:
+def in_blocks(func: Callable[..., NDArray], *args: ArrayLike) -> NDArray[np.float64] | np.float64:
     """``func(*args)`` for an elementwise ``func``, run block by block when the arrays are long.
 
     >>> bool(np.array_equal(in_blocks(np.square, np.arange(50_000.0)), np.arange(50_000.0) ** 2))
@@ -53,11 +53,11 @@ def _single_or_array(value: ArrayLike) -> NDArray[np.float64] | np.float64:
     return array[()] if array.ndim == 0 else array
 
 
-def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64]]:
+def blockwise(func: Callable[..., NDArray]) -> Callable[..., NDArray[np.float64] | np.float64]:
     """Decorate an elementwise function of array arguments so that long inputs run block by block."""
 
     @wraps(func)
-    def wrapper(*args: ArrayLike) -> NDArray[np.float64]:
+    def wrapper(*args: ArrayLike) -> NDArray[np.float64] | np.float64:
         return in_blocks(func, *args)
 
     return wrapper

@@ -113,7 +113,8 @@ class InverseTable:
         _, d_ln_p = equation.ln_pressure_and_slope(nodes)
         tangent = -2.0 * s / d_ln_p * self._step  # dT/ds, per interval
         t0, t1, m0, m1 = nodes[:-1], nodes[1:], tangent[:-1], tangent[1:]
-        # One more interval past the last node, constant at `low`: s at the very end needs no clamp.
+        # One more interval past the last node, constant at `low`: with s clamped to the table's end,
+        # its index and fraction are valid there too, and no other clamp is needed.
         c = (t0, m0, 3 * (t1 - t0) - 2 * m0 - m1, 2 * (t0 - t1) + m0 + m1)
         self._c = tuple(np.append(part, end) for part, end in zip(c, (low, 0.0, 0.0, 0.0), strict=True))
 
@@ -126,7 +127,7 @@ class InverseTable:
         s = np.minimum(np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step, self._end)
         index = s.astype(np.intp)
         t = s - index
-        c0, c1, c2, c3 = (c.take(index, mode="clip") for c in self._c)
+        c0, c1, c2, c3 = (c.take(index, mode="clip") for c in self._c)  # clip: a NaN's index is garbage
         return ((c3 * t + c2) * t + c1) * t + c0
 
 

@@ -35,16 +35,16 @@ class Unit:
     scale: float
     offset: float = 0.0
 
-    def to_si(self, value: ArrayLike) -> NDArray[np.float64]:
-        """``value`` in this unit, in SI [Pa, K or m]."""
+    def to_si(self, value: ArrayLike) -> NDArray[np.float64] | float:
+        """``value`` in this unit, in SI [Pa, K or m]; a float stays a float."""
         return _numbers(value) * self.scale + self.offset
 
-    def from_si(self, value: ArrayLike) -> NDArray[np.float64]:
-        """``value`` in SI [Pa, K or m], in this unit."""
+    def from_si(self, value: ArrayLike) -> NDArray[np.float64] | float:
+        """``value`` in SI [Pa, K or m], in this unit; a float stays a float."""
         return (_numbers(value) - self.offset) / self.scale
 
 
-def _numbers(value: ArrayLike) -> NDArray[np.float64]:
+def _numbers(value: ArrayLike) -> NDArray[np.float64] | float:
     """``value`` as float64: an array, or a single float as it is (scalar arithmetic is cheaper, same floats)."""
     return value if isinstance(value, float | np.ndarray) else np.asarray(value, dtype=float)
 

@@ -3,7 +3,7 @@
 from typing import Any
 
 import pytest
-from marshmallow import Schema, ValidationError, fields, post_load
+from marshmallow import EXCLUDE, Schema, ValidationError, fields, post_load
 
 from service.api.loader import FieldLoader
 from service.api.operations import OPERATIONS
@@ -44,7 +44,7 @@ def test_same_values_and_errors_as_schema_load(operation, kind) -> None:
             assert declared == [name for name in expected[1] if name in schema.load_fields], data
 
 
-def test_schemas_with_hooks_are_refused() -> None:
+def test_schemas_it_cannot_load_alike_are_refused() -> None:
     class Hooked(Schema):
         x = fields.Float()
 
@@ -54,3 +54,7 @@ def test_schemas_with_hooks_are_refused() -> None:
 
     with pytest.raises(TypeError, match="hooks"):
         FieldLoader(Hooked())
+    renamed = Schema.from_dict({"x": fields.Float(attribute="y")})
+    for schema in (renamed(), Schema.from_dict({"x": fields.Float()})(unknown=EXCLUDE), Hooked(many=True)):
+        with pytest.raises(TypeError, match=r"Schema\.load"):
+            FieldLoader(schema)
