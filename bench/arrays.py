@@ -1,7 +1,8 @@
 """Array benchmark: points per second for POSTs of 1e3, 1e4 and 1e5 points, JSON and CSV.
 
 Each figure is end to end as a client sees it: encode the request body, send it over a
-kept-alive loopback connection to `make serve`'s gunicorn, read the answer and decode it.
+loopback connection to `make serve`'s gunicorn (its sync workers close the connection after each
+answer; the client opens the next), read the answer and decode it.
 
     python bench/arrays.py      (or: make bench-arrays)
 """
@@ -74,8 +75,8 @@ def main() -> None:
         "",
         verdict,
         "",
-        f"Water boiling points, kPa in and degC out; {REPEATS} requests per row on one kept-alive "
-        "connection; client side numpy and orjson (the CSV rows too).",
+        f"Water boiling points, kPa in and degC out; {REPEATS} requests per row, one at a time over loopback "
+        "(a new connection each: gunicorn's sync workers close it); client side numpy and orjson (the CSV rows too).",
     ]
     write_section("arrays", f"Measured {machine()}.\n\n" + "\n".join(rows))
 

@@ -31,13 +31,23 @@ TARGET_RATIO = 0.8
 
 
 def varied(path: str, template: str) -> str:
-    """A wrk script whose every request has other numbers: ``{n/100}`` in ``template`` runs from 10 to 1010."""
-    query = template.replace("{n/100}", '" .. n / 100 .. "')
+    """A wrk script whose every request is new: ``{x}`` in ``template`` becomes 10 + k / 10**6.
+
+    k counts each thread's requests from its own offset, and each round starts its threads at
+    offsets of its own (ROUND, set per run), so no two requests of a run share a query and no
+    worker's answer cache can answer one.
+    """
+    query = template.replace("{x}", '" .. string.format("%.6f", 10 + k / 1e6) .. "')
     return f"""
-count = 0
+threads = 0
+function setup(thread)
+  thread:set("first", (ROUND * 16 + threads) * 10000000)
+  threads = threads + 1
+end
+k = 0
 request = function()
-  count = count + 1
-  n = 1000 + count % 100000
+  if k == 0 then k = first end
+  k = k + 1
   return wrk.format("GET", "{path}?{query}")
 end
 """
@@ -48,14 +58,14 @@ CASES = [  # name, path (with a fixed query), wrk script (varying the query) or 
     (
         "GET /v1/boiling-point, gauge + elevation, every request new",
         "/v1/boiling-point",
-        varied("/v1/boiling-point", "gauge_pressure={n/100}&elevation=1420"),
+        varied("/v1/boiling-point", "gauge_pressure={x}&elevation=1420"),
     ),
     (
         "GET /v1/boiling-point, absolute pressure, every request new",
         "/v1/boiling-point",
-        varied("/v1/boiling-point", "pressure={n/100}"),
+        varied("/v1/boiling-point", "pressure={x}"),
     ),
-    ("GET /v1/atmosphere, every request new", "/v1/atmosphere", varied("/v1/atmosphere", "elevation={n/100}")),
+    ("GET /v1/atmosphere, every request new", "/v1/atmosphere", varied("/v1/atmosphere", "elevation={x}")),
     ("GET /v1/boiling-point, one request repeated", "/v1/boiling-point?gauge_pressure=950&elevation=1420", None),
     ("GET /v1/atmosphere, one request repeated", "/v1/atmosphere?elevation=1420", None),
 ]
@@ -86,11 +96,11 @@ def worker_cpu_seconds(master: int) -> float:
     return (total + int(own[13]) + int(own[14])) / os.sysconf("SC_CLK_TCK")  # + cutime, cstime
 
 
-def run_wrk(wrk: str, url: str, script: str | None, master: int) -> dict[str, float]:
+def run_wrk(wrk: str, url: str, script: str | None, master: int, round_: int) -> dict[str, float]:
     command = [wrk, f"-t{THREADS}", f"-c{CONNECTIONS}", f"-d{DURATION}", "--latency", url]
     with tempfile.NamedTemporaryFile("w", suffix=".lua") as lua:
         if script:
-            lua.write(script)
+            lua.write(f"ROUND = {round_}\n{script}")
             lua.flush()
             command[1:1] = ["-s", lua.name]
         cpu = worker_cpu_seconds(master)
@@ -110,8 +120,8 @@ def main() -> None:
     wrk = ensure_wrk()
     rounds: list[dict[str, dict[str, float]]] = []
     with gunicorn(free_port()) as (base, master):
-        for _ in range(ROUNDS):
-            rounds.append({name: run_wrk(wrk, base + path, script, master) for name, path, script in CASES})
+        for round_ in range(ROUNDS):
+            rounds.append({name: run_wrk(wrk, base + path, script, master, round_) for name, path, script in CASES})
     rows = [
         "| request | requests/s | ratio to /healthz | worker CPU us/request | p50 ms | p90 ms | p99 ms | non-2xx |",
         "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
