@@ -47,14 +47,14 @@ class Input:
 
 @dataclass(frozen=True, slots=True)
 class Inputs:
-    """A parsed request: SI arrays of one shape, units, and the other options."""
+    """A parsed request: SI arrays of one shape (or single numpy scalars), units, and the other options."""
 
-    values: dict[str, NDArray[np.float64]]
+    values: dict[str, Numbers]
     units: dict[str, Unit]
     options: dict[str, Any]
     shape: tuple[int, ...]
 
-    def get(self, name: str) -> NDArray[np.float64] | None:
+    def get(self, name: str) -> Numbers | None:
         return self.values.get(name)
 
 
@@ -125,7 +125,7 @@ class Operation:
         """
         loaded = self._loaders[kind].load(data)
         units = {d: loaded.pop(f"{d}_unit", None) or default_unit(d) for d in self.dimensions}
-        values: dict[str, NDArray[np.float64]] = {}
+        values: dict[str, Numbers] = {}
         for name, spec in self.inputs.items():
             raw = loaded.pop(name, None)
             if raw is None:
