@@ -145,12 +145,3 @@ def default_unit(dimension: Dimension) -> Unit:
 def codes(dimension: Dimension) -> list[str]:
     """Canonical codes of one dimension, in table order."""
     return [u.code for u in UNITS.values() if u.dimension == dimension]
-
-
-def difference_scale(unit: str) -> float:
-    """Kelvin per one step of a temperature-difference ``unit`` [K per unit].
-
-    >>> difference_scale("degF")
-    0.5555555555555556
-    """
-    return resolve_unit(unit, "temperature").scale
