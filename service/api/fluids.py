@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from typing import Any
 
-from flask import Blueprint, Response, current_app
+from flask import Blueprint, Response
 from marshmallow import Schema, fields
 
 from service.api.formats import cacheable
@@ -76,10 +76,10 @@ def list_fluids() -> Response:
     loaded = FluidSearchQuery().load(query_args())
     found = catalog().search(loaded["q"]) if loaded.get("q") else list(catalog().fluids.values())
     units = _units(loaded)
-    return cacheable(current_app.json.response({"count": len(found), "fluids": [summary(f, *units) for f in found]}))
+    return cacheable({"count": len(found), "fluids": [summary(f, *units) for f in found]})
 
 
 @blueprint.get("/v1/fluids/<name>")
 def fluid_detail(name: str) -> Response:
     loaded = FluidQuery().load(query_args())
-    return cacheable(current_app.json.response(detail(resolve_catalog_fluid(name), *_units(loaded))))
+    return cacheable(detail(resolve_catalog_fluid(name), *_units(loaded)))

@@ -55,9 +55,10 @@ CACHE_CONTROL = "public, max-age=3600"
 """Answers follow from the request and the built-in tables alone: an hour is safe for any cache."""
 
 
-def cacheable(response: Response) -> Response:
-    """Mark a GET answer cacheable with a strong ETag; answer 304 when If-None-Match matches it."""
-    return _tagged(response.get_data(), response.mimetype, _etag(response.get_data()))
+def cacheable(body: dict[str, Any]) -> Response:
+    """The JSON answer ``body`` with a strong ETag, cacheable; 304 when If-None-Match matches it."""
+    content = encode(body)
+    return _tagged(content, MEDIA_TYPES["json"], _etag(content))
 
 
 def _etag(body: bytes) -> str:
