@@ -19,6 +19,7 @@ scalars for single values.
 from __future__ import annotations
 
 import bisect
+from collections.abc import Callable
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
@@ -126,6 +127,20 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
     return EARTH_RADIUS * h / (EARTH_RADIUS - h)
 
 
+def _common_layer(values: NDArray | float, layer_of: Callable[[float], int]) -> int | None:
+    """The one layer that holds a single value, or every value of an array (by its ends); None otherwise.
+
+    ``layer_of`` places one value; it must be monotone, so that the ends place all between them.
+    """
+    if isinstance(values, float):
+        return layer_of(values)
+    if values.size:
+        low, high = layer_of(values.min()), layer_of(values.max())
+        if low == high:
+            return low
+    return None
+
+
 def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | int:
     """Index of the layer holding each geopotential height: how many upper bases lie at or below it.
 
@@ -133,12 +148,9 @@ def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | int:
     troposphere-only array) the answer is that layer's index alone, and the formulas use its
     constants without a lookup per point.
     """
-    if isinstance(h, float):
-        return bisect.bisect_right(_UPPER_HEIGHTS, h)
-    if h.size:
-        low, high = bisect.bisect_right(_UPPER_HEIGHTS, h.min()), bisect.bisect_right(_UPPER_HEIGHTS, h.max())
-        if low == high:
-            return low
+    layer = _common_layer(h, lambda v: bisect.bisect_right(_UPPER_HEIGHTS, v))
+    if layer is not None:
+        return layer
     km = np.floor(h / 1e3).astype(np.intp)
     km += _KM_OFFSET
     return _LAYER_OF_KM.take(km, mode="clip")  # beyond the table: the bottom or top layer, as bisect says
@@ -206,20 +218,13 @@ def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | int:
 
     One index when all share a layer, as in :func:`_layer_of_height`.
     """
-    if isinstance(p, float):
-        return _bases_at_or_above(p)
-    if p.size:
-        low, high = _bases_at_or_above(p.max()), _bases_at_or_above(p.min())
-        if low == high:
-            return low
+    layer = _common_layer(p, lambda v: len(_UPPER_PRESSURES) - bisect.bisect_left(_UPPER_PRESSURES, v))
+    if layer is not None:
+        return layer
     index = np.zeros(p.shape, dtype=np.intp)
     for base in _UPPER_PRESSURES:
         index += p <= base
     return index
-
-
-def _bases_at_or_above(p: float) -> int:
-    return len(_UPPER_PRESSURES) - bisect.bisect_left(_UPPER_PRESSURES, p)
 
 
 @blockwise
