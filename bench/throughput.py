@@ -30,8 +30,9 @@ DURATION, THREADS, CONNECTIONS, ROUNDS = "5s", 2, 32, 3
 TARGET_RATIO = 0.8
 
 
-def varied(path: str, template: str) -> str:
-    """A wrk script whose every request is new: ``{x}`` in ``template`` becomes 10 + k / 10**6.
+def varied(template: str) -> str:
+    """A wrk script whose every request is new: the URL's path, and the query ``template`` with
+    ``{x}`` as 10 + k / 10**6.
 
     k counts each thread's requests from its own offset, and each round starts its threads at
     offsets of its own (ROUND, set per run), so no two requests of a run share a query and no
@@ -48,24 +49,24 @@ k = 0
 request = function()
   if k == 0 then k = first end
   k = k + 1
-  return wrk.format("GET", "{path}?{query}")
+  return wrk.format("GET", wrk.path .. "?{query}")
 end
 """
 
 
-CASES = [  # name, path (with a fixed query), wrk script (varying the query) or None
+CASES = [  # name, path (with a fixed query, or none), wrk script (adding a new query each time) or None
     ("GET /healthz", "/healthz", None),
     (
         "GET /v1/boiling-point, gauge + elevation, every request new",
         "/v1/boiling-point",
-        varied("/v1/boiling-point", "gauge_pressure={x}&elevation=1420"),
+        varied("gauge_pressure={x}&elevation=1420"),
     ),
     (
         "GET /v1/boiling-point, absolute pressure, every request new",
         "/v1/boiling-point",
-        varied("/v1/boiling-point", "pressure={x}"),
+        varied("pressure={x}"),
     ),
-    ("GET /v1/atmosphere, every request new", "/v1/atmosphere", varied("/v1/atmosphere", "elevation={x}")),
+    ("GET /v1/atmosphere, every request new", "/v1/atmosphere", varied("elevation={x}")),
     ("GET /v1/boiling-point, one request repeated", "/v1/boiling-point?gauge_pressure=950&elevation=1420", None),
     ("GET /v1/atmosphere, one request repeated", "/v1/atmosphere?elevation=1420", None),
 ]
