@@ -11,7 +11,7 @@ and, for every fluid with a density table that CoolProp covers, the saturated-li
 
 Run from the repository root with the project's environment (CoolProp is a test dependency):
 
-    python -m tools.check_catalog [--points N] [--out docs/catalog-accuracy.md]
+    python -m tools.check_catalog [--points N] [--temperature-points N] [--out docs/catalog-accuracy.md]
 
 Exit status 1 when a target is missed: worst |dT| above 0.5 K for a fluid, the median of the
 per-fluid worst |dT| above 0.1 K, or a liquid density more than 3 % from CoolProp's.
@@ -34,6 +34,7 @@ from tools.catalog_accuracy import (
     DENSITY_TOP,
     MEDIAN_LIMIT,
     POINTS,
+    TEMPERATURE_POINTS,
     WORST_LIMIT,
     compare_catalog,
     compare_density_catalog,
@@ -79,11 +80,11 @@ def _density_cell(fluid: Fluid) -> str:
     return f"{float(density.density(t_atm)):.1f} ({density.t_min:.2f}-{density.t_max:.2f} K)"
 
 
-def report(points: int) -> tuple[str, bool]:
+def report(points: int, temperature_points: int = TEMPERATURE_POINTS) -> tuple[str, bool]:
     """The markdown report and whether every target is met."""
     catalog = load_catalog()
     names = coolprop_names_by_cas()
-    results = compare_catalog(catalog, names, points)
+    results = compare_catalog(catalog, names, points, temperature_points)
     missing = [f.id for f in catalog.fluids.values() if f.cas not in names]
     densities = compare_density_catalog(catalog, names)
     no_density = [f.id for f in catalog.fluids.values() if f.liquid_density is None]
@@ -131,8 +132,10 @@ and the reference equations of state it implements (named by CoolProp fluid and 
 catalog fluid is matched to a CoolProp fluid by CAS number and its boiling point
 `Fluid.saturation_temperature(p)` is compared with CoolProp's saturated-liquid temperature at {points}
 log-spaced pressures spanning the fluid's stated range within CoolProp's triple-to-critical range
-(pressures both reach). The table gives the largest |dT| and the pressure where it occurs. Targets:
-every fluid within {worst} K, median of the per-fluid worst within {median} K.
+(pressures both reach), and at CoolProp's saturation pressures at {temperature_points} evenly spaced temperatures
+over the same range (log-spaced pressures alone are sparse in temperature near the critical point). The
+table gives the largest |dT| and the pressure where it occurs. Targets: every fluid within {worst} K,
+median of the per-fluid worst within {median} K.
 
 The saturated-liquid density of every fluid with a density table, `Fluid.liquid_density.density(T)`,
 is compared with CoolProp's at {density_points} evenly spaced temperatures over the table's stated range
@@ -145,14 +148,21 @@ within {density_limit:g} %.
 
 def main(argv: list[str] | None = None) -> int:
     parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
-    parser.add_argument("--points", type=int, default=POINTS, help=f"pressures per fluid (default {POINTS})")
+    parser.add_argument("--points", type=int, default=POINTS, help=f"log-spaced pressures per fluid (default {POINTS})")
+    parser.add_argument(
+        "--temperature-points",
+        type=int,
+        default=TEMPERATURE_POINTS,
+        help=f"further pressures per fluid, at evenly spaced temperatures (default {TEMPERATURE_POINTS})",
+    )
     parser.add_argument("--out", type=Path, default=DEFAULT_OUT, help="markdown file to write")
     args = parser.parse_args(argv)
-    text, ok = report(args.points)
+    text, ok = report(args.points, args.temperature_points)
     print(text)
     header = HEADER.format(
         version=coolprop_version(),
         points=args.points,
+        temperature_points=args.temperature_points,
         worst=WORST_LIMIT,
         median=MEDIAN_LIMIT,
         density_points=DENSITY_POINTS,

@@ -4,7 +4,8 @@ Reference: CoolProp 8.0.0 (I.H. Bell, J. Wronski, S. Quoilin, V. Lemort, Ind. En
 (2014) 2498-2508, doi:10.1021/ie4033999) and the reference-quality Helmholtz equations of state it
 implements; the table printed by the test names each fluid's equation by its CoolProp BibTeX key.
 Every catalog fluid that CoolProp covers (matched by CAS number) is compared at 12 log-spaced
-pressures over its stated range, within CoolProp's triple..critical range. The comparison itself
+pressures and at CoolProp's saturation pressures at 24 evenly spaced temperatures, over its stated
+range within CoolProp's triple..critical range. The comparison itself
 lives in tools/catalog_accuracy.py, shared with tools/check_catalog.py, which writes
 docs/catalog-accuracy.md.
 """
