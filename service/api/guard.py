@@ -35,8 +35,8 @@ from prometheus_client import (
 from service.api.problems import Problem
 
 _REQUEST_ID = re.compile(r"^[A-Za-z0-9._:-]{1,128}$")
-_OPEN_PATHS = frozenset({"/", "/healthz", "/readyz", "/metrics", "/openapi.json"})
-"""Answered without the API key: probes, the metrics scraper and the documentation carry no token."""
+_GUARDED_PREFIX = "/v1/"
+"""Only the API needs the key: probes, the metrics scraper and the documentation carry no token."""
 _METHODS = frozenset({"GET", "HEAD", "POST", "OPTIONS", "PUT", "PATCH", "DELETE"})
 """Methods counted by name in the metrics; any other counts as ``other``, so labels stay few."""
 _MAX_DEPTH = 16
@@ -134,9 +134,10 @@ def install(app: Flask) -> None:
             raise Problem(414, f"The query string has {len(request.query_string)} bytes; the limit is {max_query}.")
         if request.method == "OPTIONS":
             return None
-        if api_key and request.path not in _OPEN_PATHS:
-            token = request.headers.get("Authorization", "").removeprefix("Bearer ").strip()
-            if not hmac.compare_digest(token.encode(), api_key.encode()):
+        if api_key and request.path.startswith(_GUARDED_PREFIX):
+            scheme, _, token = request.headers.get("Authorization", "").strip().partition(" ")
+            # The scheme name is case-insensitive (RFC 9110, section 11.1).
+            if scheme.lower() != "bearer" or not hmac.compare_digest(token.strip().encode(), api_key.encode()):
                 raise Problem(
                     401,
                     "This service needs an API key: send Authorization: Bearer <key>.",
@@ -148,7 +149,8 @@ def install(app: Flask) -> None:
 
     @app.after_request
     def _finish(response: Response) -> Response:
-        response.headers.update(SECURITY_HEADERS)
+        for name, value in SECURITY_HEADERS.items():  # a view may set its own policy (the explorer page does)
+            response.headers.setdefault(name, value)
         response.headers["X-Request-ID"] = request_id()
         origin = request.headers.get("Origin")
         if origin and origin in origins:

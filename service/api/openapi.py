@@ -271,6 +271,13 @@ def build_document() -> dict[str, Any]:
                 }
             },
         ),
+        (
+            "/docs",
+            "explorer",
+            "The API explorer: this document as an interactive page, served with its assets by this service",
+            None,
+            {"200": {"description": "An HTML page (Swagger UI) for a web browser.", "content": {"text/html": text}}},
+        ),
     ):
         catalog_path = path.startswith("/v1/")
         operation: dict[str, Any] = {
