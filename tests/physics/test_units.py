@@ -1,9 +1,11 @@
 """Unit conversions against their defining values."""
 
+import re
+
 import numpy as np
 import pytest
 
-from service.physics.units import DEFAULT_UNITS, UNITS, codes, resolve_unit
+from service.physics.units import DEFAULT_UNITS, UNITS, codes, resolve_unit, spellings
 
 # Exact factors by definition: CGPM 1954 (atm), the 1959 international yard and pound
 # (ft, psi), conventional mercury columns (NIST SP 811, appendix B.8: mmHg, inHg).
@@ -19,6 +21,12 @@ EXACT = [
     ("MPa", "pressure", 1e6),
     ("ft", "length", 0.3048),
     ("km", "length", 1000.0),
+    # Conventional columns of water (density 1000 kg/m3, standard gravity) and the technical atmosphere:
+    # NIST SP 811 (2008), appendix B.8, "centimeter of water, conventional" 98.0665 Pa and "kilogram-force
+    # per square centimeter" 98066.5 Pa (recalled from memory); 1 in = 0.0254 m.
+    ("mH2O", "pressure", 9806.65),
+    ("inH2O", "pressure", 249.08891),
+    ("kgf/cm2", "pressure", 98066.5),
 ]
 
 
@@ -46,6 +54,10 @@ def test_temperature_scales(value: float, unit: str, kelvin: float) -> None:
         ("F", "temperature", "degF"),
         ("psia", "pressure", "psi"),
         ("HPA", "pressure", "hPa"),
+        ("kpa", "pressure", "kPa"),
+        ("PSI", "pressure", "psi"),
+        ("MPa", "pressure", "MPa"),
+        ("kgf/cm²", "pressure", "kgf/cm2"),
         ("millibar", "pressure", "mbar"),
         ("torr", "pressure", "Torr"),
         ("feet", "length", "ft"),
@@ -56,10 +68,50 @@ def test_aliases(alias: str, dimension: str, code: str) -> None:
 
 
 def test_unknown_and_wrong_dimension_are_refused() -> None:
-    with pytest.raises(KeyError, match="unknown pressure unit 'psig'"):
-        resolve_unit("psig", "pressure")
+    with pytest.raises(KeyError, match="unknown pressure unit 'furlong'"):
+        resolve_unit("furlong", "pressure")
     with pytest.raises(KeyError, match="unknown length unit"):
         resolve_unit("kPa", "length")
+
+
+@pytest.mark.parametrize(
+    ("name", "dimension", "says"),
+    [
+        # Letter case carries meaning in SI prefixes: m is milli, M is mega (SI Brochure, 9th ed., table 7).
+        ("mPa", "pressure", "mPa is the millipascal"),
+        ("Mbar", "pressure", "Mbar is the megabar"),
+        ("MPA", "pressure", "'MPA' could be MPa (megapascal) or mPa (the millipascal)"),
+        ("mpa", "pressure", "'mpa' could be MPa (megapascal) or mPa (the millipascal)"),
+        ("MBAR", "pressure", "'MBAR' could be Mbar (the megabar) or mbar (millibar)"),
+        ("M", "length", "M is the nautical mile"),
+    ],
+)
+def test_case_that_carries_meaning_is_kept(name: str, dimension: str, says: str) -> None:
+    with pytest.raises(KeyError, match=re.escape(says)):
+        resolve_unit(name, dimension)  # type: ignore[arg-type]
+
+
+def test_gauge_and_absolute_spellings_fit_only_their_pressures() -> None:
+    # psig, barg and kPag read a gauge; psia, bara and kPaA an absolute pressure (common practice, no source).
+    for gauge in ("psig", "barg", "kPag", "PSIG"):
+        assert resolve_unit(gauge, "pressure", "gauge").reference == "gauge"
+        with pytest.raises(KeyError, match="marks a gauge reading"):
+            resolve_unit(gauge, "pressure", "absolute")
+        with pytest.raises(KeyError, match="marks a gauge reading"):
+            resolve_unit(gauge, "pressure")  # the unit of every pressure of a request is not a gauge's
+    for absolute in ("psia", "bara", "kPaA"):
+        assert resolve_unit(absolute, "pressure", "absolute").reference == "absolute"
+        with pytest.raises(KeyError, match="marks an absolute pressure"):
+            resolve_unit(absolute, "pressure", "gauge")
+    assert resolve_unit("psi", "pressure", "gauge") == resolve_unit("psi", "pressure")
+
+
+def test_every_listed_spelling_resolves_and_no_two_units_share_a_folded_spelling() -> None:
+    for dimension in ("pressure", "temperature", "length"):
+        for reference in (None, "absolute", "gauge"):
+            for name in spellings(dimension, reference):  # type: ignore[arg-type]
+                assert resolve_unit(name, dimension, reference).dimension == dimension  # type: ignore[arg-type]
+    assert "MPA" not in spellings("pressure") and "mbar" in spellings("pressure")
 
 
 def test_every_code_round_trips_arrays() -> None:
@@ -71,6 +123,7 @@ def test_every_code_round_trips_arrays() -> None:
 
 def test_defaults_and_codes_match_the_design() -> None:
     assert DEFAULT_UNITS == {"pressure": "kPa", "temperature": "degC", "length": "m"}
-    assert codes("pressure") == ["Pa", "hPa", "kPa", "MPa", "bar", "mbar", "atm", "psi", "mmHg", "Torr", "inHg"]
+    assert codes("pressure")[:11] == ["Pa", "hPa", "kPa", "MPa", "bar", "mbar", "atm", "psi", "mmHg", "Torr", "inHg"]
+    assert codes("pressure")[11:] == ["kgf/cm2", "mH2O", "inH2O"]
     assert codes("temperature") == ["K", "degC", "degF", "degR"]
     assert codes("length") == ["m", "km", "ft"]
