@@ -3,6 +3,7 @@ the committed OpenAPI document (the contract tests)."""
 
 from __future__ import annotations
 
+import csv
 from pathlib import Path
 from typing import Any
 
@@ -79,3 +80,10 @@ class ContractClient:
 @pytest.fixture
 def client(app: Flask, openapi_document: dict[str, Any]) -> ContractClient:
     return ContractClient(app, openapi_document)
+
+
+def csv_answer(text: str) -> tuple[list[str], list[dict[str, str]]]:
+    """A CSV answer's comment lines (without their ``# ``) and its rows, keyed by the header's cells."""
+    lines = text.splitlines()
+    notes = [line.removeprefix("# ") for line in lines if line.startswith("#")]
+    return notes, list(csv.DictReader(line for line in lines if not line.startswith("#")))

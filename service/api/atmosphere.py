@@ -35,7 +35,7 @@ def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
     else:
         model += ", pressure scaled to the given sea-level pressures"
     return {
-        "elevation": quantity(elevation, inputs.units["length"]),
+        "elevation": inputs.echo("elevation", inputs.units["length"]),
         "geopotential_height": quantity(atmosphere.geopotential_height(elevation), inputs.units["length"]),
         "pressure": quantity(pressure, inputs.units["pressure"]),
         "temperature": quantity(atmosphere.temperature_at_elevation(elevation), inputs.units["temperature"]),

@@ -8,20 +8,18 @@ in Python's shortest round-trip form, so both parse back to the JSON values exac
 
 from __future__ import annotations
 
-import csv
 import hashlib
-import io
 from collections import OrderedDict
-from collections.abc import Callable, Iterable
+from collections.abc import Callable, Iterable, Sequence
 from typing import Any
 
 import numpy as np
 import orjson
 from flask import Response, request
-from numpy.typing import NDArray
 
 from service.api.jsonio import encode
-from service.api.problems import invalid
+from service.api.quantities import significant
+from service.fluids.cautions import Caution
 
 MEDIA_TYPES = {"json": "application/json", "text": "text/plain", "csv": "text/csv"}
 
@@ -37,18 +35,68 @@ def chosen_format(requested: str | None, offered: Iterable[str]) -> str:
     return next(name for name, media in MEDIA_TYPES.items() if media == best)
 
 
-def render(body: dict[str, Any], fmt: str) -> tuple[bytes, str]:
-    """The answer ``body`` in format ``fmt``, and its media type."""
+def finish(
+    answer: dict[str, Any], tag: str | list[str] | None, digits: int | None, shape: tuple[int, ...]
+) -> dict[str, Any]:
+    """The answer with the request's ``tag`` first, every number rounded to ``digits`` significant digits."""
+    if isinstance(tag, list):  # one tag per point, spread like any array of the request
+        tag = np.broadcast_to(np.array(tag, dtype=object), shape).tolist() if shape else tag[0]
+    if tag is not None:
+        answer = {"tag": tag, **answer}
+    if digits is None:
+        return answer
+    return {
+        name: {**value, "value": significant(value["value"], digits)} if _is_quantity(value) else value
+        for name, value in answer.items()
+    }
+
+
+def render(body: dict[str, Any], fmt: str, shape: tuple[int, ...] = ()) -> tuple[bytes, str]:
+    """The answer ``body`` (of ``shape`` points) in format ``fmt``, and its media type."""
+    if fmt == "csv":
+        return as_csv(body, shape).encode(), MEDIA_TYPES["csv"]
     if fmt == "json":
-        return encode(body), MEDIA_TYPES["json"]
-    text = as_text(body) if fmt == "text" else as_csv(body)
-    return text.encode(), MEDIA_TYPES[fmt]
+        return encode(shown(body, shape)), MEDIA_TYPES["json"]
+    return as_text(shown(body, shape)).encode(), MEDIA_TYPES["text"]
 
 
-def respond(body: dict[str, Any], fmt: str) -> Response:
+def shown(body: dict[str, Any], shape: tuple[int, ...]) -> dict[str, Any]:
+    """The answer as JSON shows it: its warnings as text that names the points each concerns."""
+    return {**body, "warnings": warning_texts(body["warnings"], shape)} if "warnings" in body else body
+
+
+def respond(body: dict[str, Any], fmt: str, shape: tuple[int, ...] = ()) -> Response:
     """The answer ``body`` in format ``fmt``, as a response."""
-    content, mimetype = render(body, fmt)
+    content, mimetype = render(body, fmt, shape)
     return Response(content, mimetype=mimetype)
+
+
+def warning_texts(warnings: Sequence[str | Caution], shape: tuple[int, ...]) -> list[str]:
+    """The warnings as text; in an array answer each says which points it concerns (``points 0, 3-5: ...``)."""
+    out = []
+    for item in warnings:
+        text, mask = (item, None) if isinstance(item, str) else (item.text, item.points)
+        if not shape:
+            if mask is None or bool(mask):
+                out.append(text)
+            continue
+        marked = None if mask is None else np.flatnonzero(np.broadcast_to(mask, shape))
+        if marked is None or marked.size == np.prod(shape):
+            out.append(f"all points: {text}")
+        elif marked.size:
+            out.append(f"{'point' if marked.size == 1 else 'points'} {index_ranges(marked)}: {text}")
+    return out
+
+
+def index_ranges(indexes: np.ndarray) -> str:
+    """Ascending indexes written as runs: ``0-2, 5, 7-8``.
+
+    >>> index_ranges(np.array([0, 1, 2, 5, 7, 8]))
+    '0-2, 5, 7-8'
+    """
+    breaks = np.flatnonzero(np.diff(indexes) != 1) + 1
+    starts, ends = indexes[np.r_[0, breaks]], indexes[np.r_[breaks - 1, -1]]
+    return ", ".join(str(a) if a == b else f"{a}-{b}" for a, b in zip(starts.tolist(), ends.tolist(), strict=True))
 
 
 CACHE_CONTROL = "public, max-age=3600"
@@ -101,55 +149,6 @@ class AnswerCache:
         return _tagged(*hit)
 
 
-def csv_columns(text: str) -> dict[str, dict[str, Any]]:
-    """A CSV body as ``{name: {"value": array, "unit": code or None}}``, parsed in one numpy call.
-
-    The header names the columns, optionally with a unit: ``gauge_pressure [kPa]``. Every row
-    has as many cells as the header; the first row that has not is named in the refusal. Rows
-    end with LF, CRLF or a bare CR (spreadsheets write all three).
-    """
-    header, _, rows = text.replace("\r\n", "\n").replace("\r", "\n").strip().partition("\n")
-    if not rows.strip():
-        raise invalid("body", "a CSV body has a header row and at least one row of numbers")
-    names = [h.strip() for h in header.split(",")]
-    bare = [n.partition("[")[0].strip() for n in names]
-    if len(set(bare)) != len(bare):
-        raise invalid("body", "a CSV header names each column once")
-    cells_per_row = _commas_per_row(rows) + 1
-    misfits = np.flatnonzero(cells_per_row != len(names))
-    if misfits.size:
-        row = misfits[0]
-        raise invalid(
-            "body",
-            f"every CSV row must have as many cells as the header ({len(names)}); "
-            f"row {row + 1} below the header has {cells_per_row[row]}",
-        )
-    try:  # orjson reads the cells as one JSON array of numbers: strict and fast
-        cells = orjson.loads("[" + rows.replace("\n", ",") + "]")
-    except orjson.JSONDecodeError:
-        cells = None
-    if cells is None or not set(map(type, cells)) <= {int, float}:
-        raise invalid("body", "every CSV cell below the header must be a number")
-    table = np.array(cells, dtype=float).reshape(-1, len(names))
-    columns = {}
-    for i, header_cell in enumerate(names):
-        name, _, unit = header_cell.partition("[")
-        columns[name.strip()] = {"value": table[:, i].copy(), "unit": unit.rstrip("] ") or None}
-    return columns
-
-
-def _commas_per_row(rows: str) -> NDArray[np.intp]:
-    """How many commas each line of ``rows`` holds, from where its commas and line ends lie.
-
-    >>> _commas_per_row("1,2\\n3\\n,,").tolist()
-    [1, 0, 2]
-    """
-    data = np.frombuffer(rows.encode(), dtype=np.uint8)
-    commas = np.flatnonzero(data == ord(","))
-    line_ends = np.append(np.flatnonzero(data == ord("\n")), data.size)
-    return np.diff(np.searchsorted(commas, line_ends), prepend=0)
-
-
 def _number(value: float) -> str:
     return repr(float(value))
 
@@ -174,42 +173,60 @@ def as_text(body: dict[str, Any]) -> str:
     return "\n".join(lines) + "\n"
 
 
-def as_csv(body: dict[str, Any]) -> str:
-    """The quantities (and per-point labels such as ``state``) as columns, one row per point.
+_CSV_NOTES = ("fluid", "model", "method", "source")
+"""Fields of an answer that a CSV answer carries in comment lines above its header."""
 
-    Numbers are written by orjson in the same shortest round-trip form as the JSON answer;
-    with labels among the columns, the cells are joined into rows in Python.
+
+def as_csv(body: dict[str, Any], shape: tuple[int, ...]) -> str:
+    """The answer as CSV: comment lines, then one column per quantity or label, one row per point.
+
+    Lines starting with ``#`` above the header carry the answer's fluid, method and source and its
+    numbered warnings; a ``warnings`` column gives each row the numbers of the warnings that concern
+    it, and a ``tag`` column leads when the request sent tags. Numbers are written by orjson in the
+    same shortest round-trip form as the JSON answer.
     """
-    headers, columns = [], []
+    rows = int(np.prod(shape)) if shape else 1
+    warnings = [w if isinstance(w, Caution) else Caution(w, True) for w in body.get("warnings", ())]
+    notes = [f"# {name}: {body[name]}" for name in _CSV_NOTES if body.get(name)]
+    notes += [f"# warning {i}: {w.text}" for i, w in enumerate(warnings, start=1)]
+    numbers, number_headers = [], []
+    labels: dict[str, list[str]] = {}
     for name, value in body.items():
         if _is_quantity(value):
-            headers.append(f"{name} [{value['unit']}]")
-            columns.append(np.atleast_1d(np.asarray(value["value"], dtype=float)))
-        elif isinstance(value, list | str) and name not in {"warnings", "method", "source", "fluid", "model"}:
-            headers.append(name)
-            columns.append([value] if isinstance(value, str) else value)
-    out = io.StringIO()
-    csv.writer(out, lineterminator="\n").writerow(headers)
-    if all(isinstance(c, np.ndarray) for c in columns):
-        # All numbers: orjson writes the whole table as [[a,b],[c,d]]; brackets become line ends.
-        table = np.column_stack(np.broadcast_arrays(*columns))
-        text = orjson.dumps(table, option=orjson.OPT_SERIALIZE_NUMPY).decode()
-        out.write(text[2:-2].replace("],[", "\n") + "\n" if table.size else "")
-        return out.getvalue()
-    cells = [_cells(c) for c in columns]
-    rows = max((len(c) for c in cells if len(c) != 1), default=1)  # single values repeat down the column
-    cells = [c * rows if len(c) == 1 else c for c in cells]
-    if rows:
-        out.write("\n".join(map(",".join, zip(*cells, strict=True))) + "\n")
-    return out.getvalue()
+            number_headers.append(f"{name} [{value['unit']}]")
+            numbers.append(np.broadcast_to(np.asarray(value["value"], dtype=float), shape or (1,)))
+        elif name not in {"warnings", *_CSV_NOTES} and isinstance(value, list | str):
+            labels[name] = [_csv_cell(v) for v in ([value] * rows if isinstance(value, str) else value)]
+    if warnings:
+        labels["warnings"] = _warning_numbers(warnings, shape, rows)
+    tag = labels.pop("tag", None)
+    columns = [*([tag] if tag else []), *([_number_rows(numbers)] if numbers else []), *labels.values()]
+    header = ",".join([*(["tag"] if tag else []), *number_headers, *labels])
+    lines = [*notes, header, *(map(",".join, zip(*columns, strict=True)) if rows else ())]
+    return "\n".join(lines) + "\n"
 
 
-def _cells(value: np.ndarray | list[str]) -> list[str]:
-    """One column's cells as text: numbers through orjson, labels as they are."""
-    if isinstance(value, list):
-        return value
-    encoded = orjson.dumps(value, option=orjson.OPT_SERIALIZE_NUMPY)
-    return encoded[1:-1].decode().split(",") if len(encoded) > 2 else []
+def _number_rows(columns: list[np.ndarray]) -> list[str]:
+    """The number columns as one text line per row: orjson writes the table as [[a,b],[c,d]]."""
+    table = np.column_stack(columns)
+    return orjson.dumps(table, option=orjson.OPT_SERIALIZE_NUMPY).decode()[2:-2].split("],[") if table.size else []
+
+
+def _csv_cell(text: str) -> str:
+    """A label as a CSV cell: quoted when it holds a comma, a quote or a line end (RFC 4180)."""
+    if any(c in text for c in ',"\r\n'):
+        return '"' + text.replace('"', '""') + '"'
+    return text
+
+
+def _warning_numbers(warnings: list[Caution], shape: tuple[int, ...], rows: int) -> list[str]:
+    """Each row's warning numbers (``1 3``); rows alike share one string, found per distinct set."""
+    marks = np.zeros(rows, dtype=np.int64)
+    for bit, warning in enumerate(warnings):
+        marks |= np.broadcast_to(np.asarray(warning.points, dtype=bool), shape).reshape(-1).astype(np.int64) << bit
+    sets, which = np.unique(marks, return_inverse=True)
+    texts = [" ".join(str(b + 1) for b in range(len(warnings)) if s >> b & 1) for s in sets.tolist()]
+    return [texts[i] for i in which.tolist()]
 
 
 def _listed(value: Any) -> list[Any]:

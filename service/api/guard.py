@@ -119,11 +119,39 @@ def json_depth_exceeds(body: bytes, limit: int) -> bool:
     return bool(np.cumsum(step).max() > limit)
 
 
+def read_body(seconds: float) -> bytes:
+    """The request's body, which must arrive within ``seconds``: 408 when it does not.
+
+    Under gunicorn's gevent worker a slow or stalled client only holds a greenlet, and the
+    deadline (a ``gevent.Timeout``) ends its wait even while bytes trickle in. Elsewhere (the
+    test client, a development server) nothing can interrupt a blocking read, and the body is read
+    as it comes.
+    """
+    late = Problem(
+        408,
+        f"The request body did not arrive within {seconds:g} s (BOILING_BODY_TIMEOUT): send it whole, at once.",
+        {"body": ["arrived too slowly"]},
+    )
+    with _deadline(seconds, late):
+        return request.get_data()
+
+
+def _deadline(seconds: float, late: Problem) -> contextlib.AbstractContextManager[Any]:
+    """A context that raises ``late`` after ``seconds``, where the server runs on gevent's event loop."""
+    try:
+        from gevent import Timeout  # noqa: PLC0415 (gevent is only used under its gunicorn worker)
+        from gevent.monkey import is_module_patched  # noqa: PLC0415
+    except ImportError:  # pragma: no cover (gevent is a dependency of the service)
+        return contextlib.nullcontext()
+    return Timeout(seconds, late) if is_module_patched("socket") else contextlib.nullcontext()
+
+
 def install(app: Flask) -> None:
     """Register the request guards and the /metrics path on ``app``."""
     api_key = app.config.get("API_KEY") or ""
     origins = frozenset(app.config.get("CORS_ORIGINS") or ())
     max_query = app.config["MAX_QUERY_BYTES"]
+    body_seconds = app.config["BODY_TIMEOUT"]
 
     @app.before_request
     def _guard() -> Response | None:
@@ -143,8 +171,12 @@ def install(app: Flask) -> None:
                     "This service needs an API key: send Authorization: Bearer <key>.",
                     headers={"WWW-Authenticate": 'Bearer realm="boiling-point"'},
                 )
-        if request.method == "POST" and request.is_json and json_depth_exceeds(request.get_data(), _MAX_DEPTH):
-            raise Problem(400, f"The JSON body nests deeper than {_MAX_DEPTH} levels.", {"body": ["nested too deep"]})
+        if request.method == "POST":
+            body = read_body(body_seconds)
+            if request.is_json and json_depth_exceeds(body, _MAX_DEPTH):
+                raise Problem(
+                    400, f"The JSON body nests deeper than {_MAX_DEPTH} levels.", {"body": ["nested too deep"]}
+                )
         return None
 
     @app.after_request

@@ -14,7 +14,9 @@ from service.api.operations import Input, Inputs, Operation
 from service.api.quantities import DENSITY, any_true, difference, quantity
 from service.api.rules import (
     GRAVITY,
+    INSTRUMENT_INPUTS,
     PRESSURE_INPUTS,
+    boiling_pressure_at_depth,
     check_boiling_pressure,
     check_liquid_temperature,
     local_pressure,
@@ -22,12 +24,17 @@ from service.api.rules import (
     provenance,
     refuse_outside,
     require_liquid_density,
+    temperature_uncertainty,
 )
+from service.fluids.cautions import Caution, Warnings
 
 blueprint = Blueprint("margins", __name__)
 
 DEFAULT_TOLERANCE = 0.1
 """Within this many kelvin of the saturation temperature a liquid counts as saturated."""
+COVERAGE = 2.0
+"""With a pressure uncertainty u, the saturated band widens by k u, k = 2: about 95 % coverage for a normal
+distribution (JCGM 100:2008, the GUM, section 6.3)."""
 
 TOLERANCE = fields.Float(
     allow_nan=False,
@@ -46,24 +53,36 @@ NPSH_CAUTION = (
 def saturation_margin(inputs: Inputs) -> dict[str, Any]:
     fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
-    warnings: list[str] = []
+    warnings: Warnings = []
     local = local_pressure(inputs)
     check_boiling_pressure(fluid, local.value, p_unit, inputs.options["extrapolate"], warnings)
-    saturation = fluid.saturation_temperature(local.value)
+    pressure, density = boiling_pressure_at_depth(fluid, local.value, inputs, warnings)
+    saturation = fluid.saturation_temperature(pressure)
     note_near_critical(fluid, saturation, t_unit, warnings)
     tolerance_setting = inputs.options.get("tolerance")
     tolerance = DEFAULT_TOLERANCE if tolerance_setting is None else tolerance_setting * t_unit.scale  # a difference
+    uncertainty = temperature_uncertainty(1.0 / fluid.saturation_pressure_slope(saturation), inputs)
+    band = tolerance if uncertainty is None else tolerance + COVERAGE * uncertainty
     margin = saturation - inputs.values["temperature"]
-    state = np.where(margin > tolerance, "subcooled", np.where(margin < -tolerance, "superheated", "saturated"))
-    return {
-        "fluid": fluid.id,
-        "pressure": quantity(local.value, p_unit),
-        "temperature": quantity(inputs.values["temperature"], t_unit),
+    state = np.where(margin > band, "subcooled", np.where(margin < -band, "superheated", "saturated"))
+    answer: dict[str, Any] = {"fluid": fluid.id}
+    if inputs.get("gauge_pressure") is not None:
+        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
+    answer["pressure"] = local.quantity(inputs, p_unit) if density is None else quantity(pressure, p_unit)
+    if density is not None:
+        answer["surface_pressure"] = local.quantity(inputs, p_unit)
+    answer |= {
+        "temperature": inputs.echo("temperature", t_unit),
         "saturation_temperature": quantity(saturation, t_unit),
+    }
+    if uncertainty is not None:
+        answer["saturation_temperature_uncertainty"] = difference(uncertainty, t_unit)
+    return {
+        **answer,
         "margin": difference(margin, t_unit),
         "state": state.tolist() if state.ndim else str(state),
         "tolerance": difference(tolerance, t_unit),
-        **provenance(fluid, local.note, warnings),
+        **provenance(fluid, local.note, warnings, density),
     }
 
 
@@ -71,7 +90,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
     fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     p_unit, t_unit, l_unit = inputs.units["pressure"], inputs.units["temperature"], inputs.units["length"]
     extrapolate = inputs.options["extrapolate"]
-    warnings: list[str] = []
+    warnings: Warnings = []
     temperature = inputs.values["temperature"]
     check_liquid_temperature(fluid, temperature, t_unit, extrapolate, warnings)
     density = require_liquid_density(fluid)
@@ -81,8 +100,10 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
         if not extrapolate:
             refuse_outside("temperature", temperature, t_unit, density.t_min, density.t_max, where, where)
         warnings.append(
-            f"{int(outside.sum())} value(s) of temperature lie outside the stated range of the "
-            f"{density.method}: the density is extrapolated."
+            Caution(
+                f"temperature lies outside the stated range of the {density.method}: the density is extrapolated.",
+                outside,
+            )
         )
     local = local_pressure(inputs)
     friction = inputs.get("friction_loss")
@@ -92,20 +113,39 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
     rho = density.density(temperature)
     static = inputs.values["static_head"]
     npsh = (local.value - vapor) / (rho * GRAVITY) + static - friction
-    if any_true(local.value < vapor):
+    boiling = local.value < vapor
+    if any_true(boiling):
         warnings.append(
-            "The surface pressure is below the liquid's vapor pressure: the liquid boils at the "
-            "surface, and no pump suction from it is free of vapor."
+            Caution(
+                "The surface pressure is below the liquid's vapor pressure: the liquid boils at the "
+                "surface, and no pump suction from it is free of vapor.",
+                boiling,
+            )
+        )
+    negative = npsh < 0
+    if any_true(negative):
+        warnings.append(
+            Caution(
+                "NPSH available is negative: the pressure at the suction falls below the vapor pressure, so the "
+                "liquid flashes before it reaches the impeller and no pump can take it as a liquid. Raise the "
+                "level or the pressure, cool the liquid, or cut the suction losses.",
+                negative,
+            )
         )
     warnings.append(NPSH_CAUTION)
+    answer: dict[str, Any] = {"fluid": fluid.id}
+    if inputs.get("gauge_pressure") is not None:
+        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
     return {
-        "fluid": fluid.id,
-        "pressure": quantity(local.value, p_unit),
-        "temperature": quantity(temperature, t_unit),
+        **answer,
+        "pressure": local.quantity(inputs, p_unit),
+        "temperature": inputs.echo("temperature", t_unit),
         "vapor_pressure": quantity(vapor, p_unit),
         "liquid_density": quantity(rho, DENSITY),
-        "static_head": quantity(static, l_unit),
-        "friction_loss": quantity(friction, l_unit),
+        "static_head": inputs.echo("static_head", l_unit),
+        "friction_loss": quantity(friction, l_unit)
+        if inputs.get("friction_loss") is None
+        else inputs.echo("friction_loss", l_unit),
         "npsh_available": quantity(npsh, l_unit),
         **provenance(fluid, local.note, warnings, density),
     }
@@ -120,10 +160,13 @@ Operation(
     description=(
         "The saturation temperature at the pressure on the liquid (given as for /v1/boiling-point) minus the "
         "measured `temperature`: a positive `margin` means below boiling. `state` is `subcooled`, `saturated` "
-        "(within `tolerance`) or `superheated`. Differences are in K for kelvin and Celsius requests and in "
-        "degR for Fahrenheit and Rankine requests."
+        "(within `tolerance`) or `superheated`. For an instrument check, `depth` puts the sensor below the surface "
+        "(the head of the liquid raises its saturation temperature) and `pressure_uncertainty` widens the "
+        "saturated band by twice the saturation temperature's uncertainty, so a reading error within it is not "
+        "called superheated. Differences are in K for kelvin and Celsius requests and in degR for Fahrenheit and "
+        "Rankine requests."
     ),
-    inputs={"temperature": MEASURED_TEMPERATURE, **PRESSURE_INPUTS},
+    inputs={"temperature": MEASURED_TEMPERATURE, **PRESSURE_INPUTS, **INSTRUMENT_INPUTS},
     options={"fluid": FLUID, "extrapolate": EXTRAPOLATE, "tolerance": TOLERANCE},
     body_options={"fluid": BODY_FLUID},
     dimensions=("pressure", "temperature", "length"),

@@ -19,10 +19,10 @@ from flask import current_app
 from service.api import schemas
 from service.api.fluid_field import EquationFluid, PointFluid
 from service.api.fluids import FluidQuery, FluidSearchQuery
-from service.api.formats import as_csv, as_text
+from service.api.formats import as_csv, as_text, shown
 from service.api.operations import OPERATIONS, Operation
 from service.api.problems import PROBLEM_TYPE, TITLES, problem_type
-from service.api.quantities import QuantityField
+from service.api.quantities import QuantityField, unit_schema
 from service.config import VERSION
 
 DESCRIPTION = """\
@@ -80,7 +80,7 @@ def _quantity_property(self: Any, field: Any, **kwargs: Any) -> dict[str, Any]:
                 "type": "object",
                 "required": ["value"],
                 "additionalProperties": False,
-                "properties": {"value": {"oneOf": numbers}, "unit": {"type": "string"}},
+                "properties": {"value": {"oneOf": numbers}, "unit": unit_schema(field.dimension, field.reference)},
             },
         ]
     }
@@ -99,11 +99,20 @@ def _rounded(value: Any) -> Any:
     return value
 
 
+_PROBLEM_TEXT = {
+    "schema": {
+        "type": "string",
+        "description": "The problem's fields as `name: value` lines, one `error: field: message` line per message: "
+        "the answer to a request that asked for text or CSV.",
+    }
+}
+
+
 def _problem_responses(statuses: tuple[int, ...]) -> dict[str, Any]:
     return {
         str(s): {
             "description": TITLES[s],
-            "content": {PROBLEM_TYPE: {"schema": "Problem"}},
+            "content": {PROBLEM_TYPE: {"schema": "Problem"}, "text/plain": _PROBLEM_TEXT},
         }
         for s in statuses
     }
@@ -135,9 +144,10 @@ def _csv_example(operation: Operation, body: dict[str, Any]) -> str:
 
 
 def _computing_paths(spec: APISpec, operation: Operation) -> None:
-    get_answer = _rounded(operation.compute(operation.parse(operation.example, "query")))
+    get_answer = shown(_rounded(operation.compute(operation.parse(operation.example, "query"))), ())
     array_body = _array_example(operation)
-    post_answer = _rounded(operation.compute(operation.parse(array_body, "body")))
+    post_inputs = operation.parse(array_body, "body")
+    post_answer = _rounded(operation.compute(post_inputs))
     text = {"type": "string"}
     tag = operation.path.split("/")[2]
     common = {"tags": [tag], "summary": operation.summary, "description": operation.description}
@@ -163,7 +173,7 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
             "post": {
                 **common,
                 "operationId": f"post{operation.name}",
-                "parameters": [{"in": "query", "schema": operation.units_schema}],
+                "parameters": [{"in": "query", "schema": operation.post_query_schema}],
                 "requestBody": {
                     "required": True,
                     "content": {
@@ -178,11 +188,14 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                     "200": {
                         "description": "The answer; arrays where the request sent arrays.",
                         "content": {
-                            "application/json": {"schema": operation.response, "example": post_answer},
-                            "text/csv": {"schema": text, "example": as_csv(post_answer)},
+                            "application/json": {
+                                "schema": operation.response,
+                                "example": shown(post_answer, post_inputs.shape),
+                            },
+                            "text/csv": {"schema": text, "example": as_csv(post_answer, post_inputs.shape)},
                         },
                     },
-                    **_problem_responses((*operation.errors, *_GUARDED, 413, 415)),
+                    **_problem_responses((*operation.errors, *_GUARDED, 408, 413, 415)),
                 },
             },
         },

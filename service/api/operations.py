@@ -4,6 +4,7 @@ Each operation names its input quantities once. From that list come the query-st
 schema of its GET (plain numbers in the request's units), the JSON-body schema of its POST
 (numbers, arrays, or ``{"value", "unit"}`` objects), and the parser that turns either into
 SI numpy arrays broadcast to one shape, ready for one vectorised call into the physics.
+A POST's query string may carry the same options and single values as a GET's.
 """
 
 from __future__ import annotations
@@ -15,15 +16,25 @@ from typing import Any
 
 import numpy as np
 from flask import Blueprint, Response, current_app, g, request
-from marshmallow import Schema, fields, validate
+from marshmallow import Schema, ValidationError, fields, validate
 from numpy.typing import NDArray
-from werkzeug.exceptions import BadRequest
 
-from service.api.formats import chosen_format, csv_columns, render, respond
+from service.api.formats import chosen_format, finish, render, respond
 from service.api.loader import FieldLoader
 from service.api.problems import Problem, invalid
-from service.api.quantities import Numbers, Quantity, QuantityField, UnitField, all_finite
-from service.physics.units import Dimension, Unit, default_unit, resolve_unit
+from service.api.quantities import (
+    Number,
+    Numbers,
+    Quantity,
+    QuantityField,
+    UnitField,
+    WholeNumber,
+    all_finite,
+    parse_number,
+    quantity,
+)
+from service.api.request_body import csv_table, json_object
+from service.physics.units import Dimension, Reference, Unit, default_unit, resolve_unit
 
 UNIT_DESCRIPTIONS = {
     "pressure": "Unit of every pressure in the request and the answer.",
@@ -38,29 +49,86 @@ OPERATIONS: list[Operation] = []
 
 @dataclass(frozen=True)
 class Input:
-    """One input quantity of an operation."""
+    """One input quantity of an operation; ``reference`` says whether a pressure is absolute or gauge."""
 
     dimension: Dimension
     description: str
     required: bool = False
+    reference: Reference | None = None
 
 
 @dataclass(frozen=True, slots=True)
 class Inputs:
-    """A parsed request: SI arrays of one shape (or single numpy scalars), units, and the other options."""
+    """A parsed request: SI arrays of one shape (or single numpy scalars), units, and the other options.
+
+    ``sent`` keeps each input quantity as the request wrote it, so that an answer can echo it unchanged.
+    """
 
     values: dict[str, Numbers]
     units: dict[str, Unit]
     options: dict[str, Any]
     shape: tuple[int, ...]
+    sent: dict[str, Quantity] = field(default_factory=dict)
 
     def get(self, name: str) -> Numbers | None:
         return self.values.get(name)
 
+    def echo(self, name: str, unit: Unit) -> dict[str, Any]:
+        """Input ``name`` as ``{"value", "unit"}`` in ``unit``: the numbers as sent where the units agree
+        (200 degF comes back as 200, not as 200.00000000000006 from a round trip through kelvin)."""
+        sent = self.sent[name]
+        if sent.unit is not None and sent.unit.code != unit.code:
+            return quantity(self.values[name], unit)
+        value = sent.value
+        if self.shape:
+            value = np.broadcast_to(np.asarray(value, dtype=float), self.shape)
+        return {"value": np.ascontiguousarray(value) if self.shape else float(value), "unit": unit.code}
+
+
+TAG_TEXT = validate.Length(min=1, max=200)
+TAG = fields.String(
+    validate=TAG_TEXT,
+    metadata={
+        "description": "A label echoed beside the answer (an instrument tag, say), so a caller matches answers "
+        "to its instruments by name."
+    },
+)
+
+
+class TagField(fields.Field):
+    """A POST's ``tag``: one string, or an array of strings (one per point, broadcast like a quantity)."""
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> str | list[str]:
+        tags = value if isinstance(value, list) else [value]
+        if not all(isinstance(t, str) for t in tags):
+            raise ValidationError("must be a string or an array of strings")
+        if any(not 1 <= len(t) <= 200 for t in tags):
+            raise ValidationError("each tag has 1 to 200 characters")
+        return value
+
+
+BODY_TAG = TagField(
+    metadata={
+        "description": "A label, or an array of labels one per point, echoed beside the answer so a dashboard "
+        "matches answers to its instruments by name, not by order.",
+        "oneOf": [
+            {"type": "string", "minLength": 1, "maxLength": 200},
+            {"type": "array", "items": {"type": "string", "minLength": 1, "maxLength": 200}},
+        ],
+    }
+)
+DIGITS = WholeNumber(
+    validate=validate.Range(min=1, max=17),
+    metadata={
+        "description": "Round every number of the answer to this many significant digits (default: full "
+        "precision, which parses back to the same double)."
+    },
+)
+
 
 @dataclass
 class Operation:
-    """A computing path, answered on GET (query string) and POST (JSON body)."""
+    """A computing path, answered on GET (query string) and POST (JSON or CSV body)."""
 
     path: str
     name: str
@@ -75,25 +143,28 @@ class Operation:
     body_options: Mapping[str, fields.Field] = field(default_factory=dict)
     """Options that take another field in a POST body than in the query string."""
     errors: tuple[int, ...] = (400, 404, 422)
-    """Problem statuses of the GET; the POST adds 413 and 415."""
+    """Problem statuses of the GET; the POST adds 408, 413 and 415."""
     query_schema: type[Schema] = field(init=False)
     body_schema: type[Schema] = field(init=False)
-    units_schema: type[Schema] = field(init=False)
+    post_query_schema: type[Schema] = field(init=False)
     _loaders: dict[str, FieldLoader] = field(init=False, repr=False)
 
     def __post_init__(self) -> None:
         units = {f"{d}_unit": UnitField(d, metadata={"description": UNIT_DESCRIPTIONS[d]}) for d in self.dimensions}
-        query = {
-            n: fields.Float(
-                allow_nan=False,
-                required=s.required,
-                metadata={"description": f"{s.description} In `{s.dimension}_unit`."},
-            )
-            for n, s in self.inputs.items()
-        }
+
+        def numbers(required: bool) -> dict[str, fields.Field]:
+            return {
+                n: Number(
+                    required=required and s.required,
+                    metadata={"description": f"{s.description} In `{s.dimension}_unit`."},
+                )
+                for n, s in self.inputs.items()
+            }
+
         body = {
             n: QuantityField(
                 s.dimension,
+                s.reference,
                 required=s.required,
                 metadata={
                     "description": f"{s.description} A number, an array of "
@@ -102,20 +173,24 @@ class Operation:
             )
             for n, s in self.inputs.items()
         }
+        common = {"tag": TAG, "digits": DIGITS}
         self.query_schema = Schema.from_dict(
-            name=f"{self.name}Query", fields={**query, **units, "format": _format_field("json", "text"), **self.options}
+            name=f"{self.name}Query",
+            fields={**numbers(True), **units, "format": _format_field("json", "text"), **self.options, **common},
         )
         self.body_schema = Schema.from_dict(
-            name=f"{self.name}Body", fields={**body, **units, **self.options, **self.body_options}
+            name=f"{self.name}Body",
+            fields={**body, **units, **self.options, **self.body_options, "tag": BODY_TAG, "digits": DIGITS},
         )
-        self.units_schema = Schema.from_dict(
-            name=f"{self.name}Units", fields={**units, "format": _format_field("json", "csv")}
+        self.post_query_schema = Schema.from_dict(
+            name=f"{self.name}PostQuery",
+            fields={**numbers(False), **units, "format": _format_field("json", "csv"), **self.options, **common},
         )
         # Built once: a schema instance deep-copies its fields, too slow to repeat per request.
         self._loaders = {
             "query": FieldLoader(self.query_schema()),
             "body": FieldLoader(self.body_schema()),
-            "units": FieldLoader(self.units_schema()),
+            "format": FieldLoader(Schema.from_dict({"format": _format_field("json", "csv")})()),
         }
 
     def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:
@@ -126,19 +201,28 @@ class Operation:
         loaded = self._loaders[kind].load(data)
         units = {d: loaded.pop(f"{d}_unit", None) or default_unit(d) for d in self.dimensions}
         values: dict[str, Numbers] = {}
+        sent: dict[str, Quantity] = {}
         for name, spec in self.inputs.items():
             raw = loaded.pop(name, None)
             if raw is None:
                 continue
-            given = raw if isinstance(raw, Quantity) else Quantity(raw)
-            values[name] = si = _in_si(given.value, given.unit or units[spec.dimension])
+            sent[name] = given = raw if isinstance(raw, Quantity) else Quantity(raw)
+            unit = given.unit or units[spec.dimension]
+            if unit.reference is not None and unit.reference != spec.reference:
+                raise invalid(
+                    name,
+                    f"pressure_unit marks {unit.reference} pressures, and {name} is a gauge reading: "
+                    f"use pressure_unit={unit.code}, or give {name} its own unit",
+                )
+            values[name] = si = _in_si(given.value, unit)
             if not all_finite(si):
                 raise Problem(
                     422,
                     f"{name}: a value is too large to be a {spec.dimension} in SI units.",
                     {name: ["beyond the range of double-precision numbers once converted to SI"]},
                 )
-        shape = _broadcast_shape(values)
+        tag = loaded.get("tag")
+        shape = _broadcast_shape({**values, **({"tag": np.empty(len(tag))} if isinstance(tag, list) else {})})
         limit = current_app.config["MAX_POINTS"]
         size = math.prod(shape)
         if size > limit:
@@ -146,28 +230,28 @@ class Operation:
         if shape:  # single values need no broadcasting
             values = {k: np.broadcast_to(v, shape) for k, v in values.items()}
         g.points = size  # for the points-computed metric
-        return Inputs(values, units, loaded, shape)
+        return Inputs(values, units, loaded, shape, sent)
 
     def view(self) -> Response:
         if request.method in ("GET", "HEAD"):
             return current_app.extensions["answers"].answer(self._answer_get)
         args = query_args()
-        requested = (
-            self._loaders["units"].load({"format": args.pop("format")}).get("format") if "format" in args else None
-        )
+        requested = self._loaders["format"].load({"format": args.pop("format")})["format"] if "format" in args else None
         if request.mimetype == "text/csv":
-            body = self._csv_body(args)
+            sent = csv_table(request.get_data(), (*self.inputs, "tag"))
+        elif request.is_json:
+            sent = json_object(request.get_data())
         else:
-            self._loaders["units"].load(args)
-            body = _json_body(args)
-        return respond(self._computed(self.parse(body, "body")), chosen_format(requested, ("csv",)))
+            raise Problem(415, "POST bodies are JSON (application/json) or CSV (text/csv).")
+        inputs = self.parse(self._with_query(sent, args), "body")
+        return respond(self._answer(inputs), chosen_format(requested, ("csv",)), inputs.shape)
 
     def _answer_get(self) -> tuple[bytes, str]:
         inputs = self.parse(query_args(), "query")
-        return render(self._computed(inputs), chosen_format(inputs.options.pop("format", None), ("text",)))
+        return render(self._answer(inputs), chosen_format(inputs.options.pop("format", None), ("text",)), inputs.shape)
 
-    def _computed(self, inputs: Inputs) -> dict[str, Any]:
-        """The answer, refused with 422 if any of its numbers is not finite (JSON would show null)."""
+    def _answer(self, inputs: Inputs) -> dict[str, Any]:
+        """The answer with its tag and rounding; refused with 422 if a number is not finite (JSON would show null)."""
         answer = self.compute(inputs)
         for name, value in answer.items():
             if isinstance(value, dict) and "value" in value and not all_finite(value["value"]):
@@ -176,23 +260,25 @@ class Operation:
                     f"{name}: the equations give no finite answer for these inputs.",
                     {name: ["not a finite number"]},
                 )
-        return answer
+        return finish(answer, inputs.options.get("tag"), inputs.options.get("digits"), inputs.shape)
 
-    def _csv_body(self, args: dict[str, str]) -> dict[str, Any]:
-        """A CSV body's columns as quantities; options and single values come from the query string."""
-        columns = csv_columns(request.get_data(as_text=True))
-        for name in columns:
-            if name not in self.inputs:
-                raise invalid(name, f"not an input of this path; columns may be {', '.join(self.inputs)}")
-            if name in args:
-                raise invalid(name, "given both as a column and in the query string")
-        body: dict[str, Any] = dict(args)
-        for name in set(args) & set(self.inputs):
-            try:
-                body[name] = float(args[name])
-            except ValueError:
-                raise invalid(name, "must be a number") from None
-        return body | columns
+    def _with_query(self, body: dict[str, Any], args: dict[str, str]) -> dict[str, Any]:
+        """The body with the query string's options and single values; a name given in both is refused,
+        but for a unit given alike in both."""
+        merged = dict(body)
+        for name, text in args.items():
+            if name in body:
+                if name.endswith("_unit") and _same_unit(body[name], text, name.removesuffix("_unit")):
+                    continue
+                raise invalid(name, "given both in the query string and the body")
+            if name in self.inputs:
+                try:
+                    merged[name] = parse_number(text)
+                except ValidationError as error:
+                    raise invalid(name, str(error.messages[0])) from None
+            else:
+                merged[name] = text
+        return merged
 
     def register(self, blueprint: Blueprint) -> None:
         """Answer GET and POST on ``blueprint`` and list the operation in the OpenAPI document."""
@@ -213,7 +299,7 @@ def _in_si(value: Numbers, unit: Unit) -> NDArray[np.float64] | np.float64:
 
 
 def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
-    shapes = {name: v.shape for name, v in values.items()}
+    shapes = {name: np.shape(v) for name, v in values.items()}
     if not any(shapes.values()):
         return ()
     try:
@@ -236,26 +322,6 @@ def query_args() -> dict[str, str]:
         repeated = next(key for key in args if len(request.args.getlist(key)) > 1)
         raise invalid(repeated, "given more than once")
     return args
-
-
-def _json_body(query: dict[str, Any]) -> dict[str, Any]:
-    """The JSON object of a POST, with the units its query string sets."""
-    if not request.is_json:
-        raise Problem(415, "POST bodies are JSON (application/json) or CSV (text/csv).")
-    try:
-        body = request.get_json()
-    except BadRequest:
-        raise invalid(
-            "body", "is not valid JSON (NaN, Infinity and numbers beyond double range are not JSON)"
-        ) from None
-    if not isinstance(body, dict):
-        raise invalid("body", "must be a JSON object")
-    for key in query:
-        if key.endswith("_unit"):
-            if key in body and not _same_unit(body[key], request.args[key], key.removesuffix("_unit")):
-                raise invalid(key, "given in the query string and the body with different values")
-            body[key] = request.args[key]
-    return body
 
 
 def _same_unit(a: object, b: str, dimension: str) -> bool:

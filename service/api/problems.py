@@ -5,7 +5,7 @@ from __future__ import annotations
 import logging
 from collections.abc import Mapping, Sequence
 
-from flask import Flask, Response, current_app, g
+from flask import Flask, Response, current_app, g, request
 from marshmallow import ValidationError
 from werkzeug.exceptions import HTTPException
 
@@ -18,6 +18,7 @@ TITLES = {
     404: "Not found",
     405: "Method not allowed",
     406: "Not acceptable",
+    408: "Request timeout",
     413: "Request too large",
     414: "Request URI too long",
     415: "Unsupported media type",
@@ -31,6 +32,7 @@ _SLUGS = {
     404: "not-found",
     405: "method-not-allowed",
     406: "not-acceptable",
+    408: "request-timeout",
     413: "too-large",
     414: "uri-too-long",
     415: "unsupported-media-type",
@@ -68,6 +70,7 @@ def invalid(field: str, message: str) -> Problem:
 
 
 def problem_response(problem: Problem) -> Response:
+    """The problem as ``application/problem+json``, or as plain text to a request that asked for text or CSV."""
     body = {
         "type": problem_type(problem.status),
         "title": TITLES.get(problem.status, "HTTP error"),
@@ -76,11 +79,32 @@ def problem_response(problem: Problem) -> Response:
     }
     if problem.errors:
         body["errors"] = problem.errors
-    response = current_app.json.response(body)
+    if wants_text():
+        lines = [f"{name}: {value}" for name, value in body.items() if name != "errors"]
+        lines += [f"error: {field}: {message}" for field, messages in problem.errors.items() for message in messages]
+        response = Response("\n".join(lines) + "\n", mimetype="text/plain")
+    else:
+        response = current_app.json.response(body)
+        response.mimetype = PROBLEM_TYPE
     response.status_code = problem.status
-    response.mimetype = PROBLEM_TYPE
     response.headers.update(problem.headers)
     return response
+
+
+_TEXT_FORMATS = {"text", "csv"}
+_TEXT_TYPES = ("text/plain", "text/csv")
+
+
+def wants_text() -> bool:
+    """Whether the request asked for a text answer (``format=text`` or ``csv``, or an Accept header that
+    prefers text/plain or text/csv to JSON): its errors come as text too."""
+    asked = request.args.get("format")
+    if asked:
+        return asked in _TEXT_FORMATS
+    if request.environ.get("HTTP_ACCEPT", "*/*") == "*/*":
+        return False
+    best = request.accept_mimetypes.best_match(["application/json", PROBLEM_TYPE, *_TEXT_TYPES])
+    return best in _TEXT_TYPES
 
 
 def _flatten(messages: object, prefix: str = "") -> dict[str, list[str]]:
@@ -115,7 +139,12 @@ def register_problem_handlers(app: Flask) -> None:
     @app.errorhandler(HTTPException)
     def _http(error: HTTPException) -> Response:
         status = error.code or 500
-        response = problem_response(Problem(status, error.description or TITLES.get(status, "HTTP error")))
+        detail = error.description or TITLES.get(status, "HTTP error")
+        if status == 413:
+            limit = current_app.config["MAX_CONTENT_LENGTH"]
+            size = f"{request.content_length} bytes" if request.content_length else "more bytes than that"
+            detail = f"The body has {size}; the limit is {limit} bytes (BOILING_MAX_BODY_BYTES)."
+        response = problem_response(Problem(status, detail))
         if status == 405 and error.get_response().allow:
             response.allow.update(error.get_response().allow)
         return response

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from typing import Any
 
@@ -10,7 +11,7 @@ import numpy as np
 from marshmallow import ValidationError, fields
 from numpy.typing import NDArray
 
-from service.physics.units import Dimension, Unit, codes, resolve_unit
+from service.physics.units import Dimension, Reference, Unit, codes, resolve_unit, spellings
 
 Numbers = NDArray[np.float64] | float
 """An array of numbers, or a single number (a float or a numpy scalar)."""
@@ -22,6 +23,26 @@ class Quantity:
 
     value: Numbers
     unit: Unit | None = None
+
+
+_JSON_NUMBER = re.compile(r"-?(?:0|[1-9][0-9]*)(?:\.[0-9]+)?(?:[eE][+-]?[0-9]+)?")
+"""A number as JSON writes it (RFC 8259, section 6), in ASCII digits: the one syntax every input takes."""
+OUT_OF_RANGE = "out of range: beyond double precision (magnitude above about 1.8e308)"
+NOT_A_NUMBER = "must be a number as JSON writes it: ASCII digits, an optional minus sign, fraction and exponent"
+
+
+def parse_number(text: str) -> float:
+    """A number written as text (a query string, a CSV cell), in JSON's syntax; ValidationError otherwise.
+
+    >>> parse_number("-1.5e3"), parse_number("0")
+    (-1500.0, 0.0)
+    """
+    if not _JSON_NUMBER.fullmatch(text):
+        raise ValidationError(NOT_A_NUMBER)
+    value = float(text)
+    if not math.isfinite(value):
+        raise ValidationError(OUT_OF_RANGE)
+    return value
 
 
 def finite_numbers(value: Any) -> Numbers:
@@ -36,10 +57,40 @@ def finite_numbers(value: Any) -> Numbers:
     elif isinstance(value, list) and not set(map(type, value)) <= {int, float}:
         raise ValidationError("an array must hold numbers only")
     else:
-        array = np.asarray(value, dtype=float) if isinstance(value, list) else float(value)
+        try:
+            array = np.asarray(value, dtype=float) if isinstance(value, list) else float(value)
+        except OverflowError:  # a whole number too large for a double
+            raise ValidationError(OUT_OF_RANGE) from None
     if not all_finite(array):
-        raise ValidationError("numbers must be finite")
+        raise ValidationError(OUT_OF_RANGE)
     return array
+
+
+class Number(fields.Float):
+    """A finite number: a JSON number, or text in JSON's number syntax (a query string)."""
+
+    def __init__(self, **kwargs: Any) -> None:
+        super().__init__(allow_nan=False, **kwargs)
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> float:
+        if isinstance(value, str):
+            return super()._deserialize(parse_number(value), attr, data, **kwargs)
+        if isinstance(value, bool) or not isinstance(value, int | float):
+            raise ValidationError("must be a number")
+        return super()._deserialize(finite_numbers(value), attr, data, **kwargs)
+
+
+class WholeNumber(fields.Integer):
+    """A whole number: a JSON integer, or ASCII digits in a query string."""
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> int:
+        text_ok = not isinstance(value, str) or _WHOLE.fullmatch(value)
+        if isinstance(value, bool) or not isinstance(value, int | str) or not text_ok:
+            raise ValidationError("must be a whole number in ASCII digits")
+        return super()._deserialize(value, attr, data, **kwargs)
+
+
+_WHOLE = re.compile(r"-?[0-9]{1,9}")
 
 
 # A single value is a float (a numpy scalar, mostly); these answer it without a numpy reduction,
@@ -61,29 +112,46 @@ def largest(values: Numbers, empty: float) -> float:
     return float(values.max(initial=empty)) if isinstance(values, np.ndarray) else float(values)
 
 
-class UnitField(fields.String):
-    """A unit code or alias of one dimension, loaded as a :class:`Unit`."""
+def unit_schema(dimension: Dimension, reference: Reference | None = None) -> dict[str, Any]:
+    """JSON Schema of a unit spelling for a quantity of ``dimension`` (and kind of pressure)."""
+    return {"type": "string", "enum": spellings(dimension, reference)}
 
-    def __init__(self, dimension: Dimension, **kwargs: Any) -> None:
-        self.dimension = dimension
+
+class UnitField(fields.String):
+    """A unit code or alias of one dimension, loaded as a :class:`Unit`.
+
+    With a ``reference``, the spelling may mark that kind of pressure (``psia`` for absolute);
+    without one it sets the unit of every pressure of a request, and a gauge spelling is refused.
+    """
+
+    def __init__(self, dimension: Dimension, reference: Reference | None = None, **kwargs: Any) -> None:
+        self.dimension, self.reference = dimension, reference
         metadata = kwargs.pop("metadata", {})
-        accepted = f"One of {', '.join(codes(dimension))}; common aliases (such as psia, mbar, °C, F) are accepted."
-        metadata = {**metadata, "description": f"{metadata.get('description', '')} {accepted}".strip()}
+        accepted = f"One of {', '.join(codes(dimension))} or a listed alias; letter case counts where it has meaning."
+        metadata = {
+            **metadata,
+            **unit_schema(dimension, reference),
+            "description": f"{metadata.get('description', '')} {accepted}".strip(),
+        }
         super().__init__(metadata=metadata, **kwargs)
 
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> Unit:
         text = super()._deserialize(value, attr, data, **kwargs)
         try:
-            return resolve_unit(text, self.dimension)
+            return resolve_unit(text, self.dimension, self.reference)
         except KeyError as exc:
-            raise ValidationError(exc.args[0]) from exc
+            raise ValidationError(str(exc)) from exc
 
 
 class QuantityField(fields.Field):
-    """A quantity in a JSON body: a number, an array of numbers, or ``{"value", "unit"}``."""
+    """A quantity in a JSON body: a number, an array of numbers, or ``{"value", "unit"}``.
 
-    def __init__(self, dimension: Dimension, **kwargs: Any) -> None:
-        self.dimension = dimension
+    ``reference`` says whether a pressure is absolute or a gauge reading: a unit spelling that marks
+    the other kind (``psig`` on an absolute pressure) is refused.
+    """
+
+    def __init__(self, dimension: Dimension, reference: Reference | None = None, **kwargs: Any) -> None:
+        self.dimension, self.reference = dimension, reference
         super().__init__(**kwargs)
 
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> Quantity:
@@ -97,9 +165,9 @@ class QuantityField(fields.Field):
         if not isinstance(unit, str):
             raise ValidationError("unit must be a string")
         try:
-            return Quantity(finite_numbers(value["value"]), resolve_unit(unit, self.dimension))
+            return Quantity(finite_numbers(value["value"]), resolve_unit(unit, self.dimension, self.reference))
         except KeyError as exc:
-            raise ValidationError(exc.args[0]) from exc
+            raise ValidationError(str(exc)) from exc
 
 
 DENSITY = Unit("kg/m3", "density", 1.0)  # type: ignore[arg-type]
@@ -112,8 +180,12 @@ def quantity(value_si: Numbers, unit: Unit) -> dict[str, Any]:
 
 
 def ratio(value_si: Numbers, top: Unit, bottom: Unit) -> dict[str, Any]:
-    """A slope such as dT/dp as ``{"value", "unit": "degC/kPa"}``; temperatures count as differences."""
-    return {"value": _plain(value_si * bottom.scale / top.scale), "unit": f"{top.code}/{bottom.code}"}
+    """A slope such as dT/dp as ``{"value", "unit": "degC/kPa"}``; temperatures count as differences.
+
+    A code with a slash of its own is bracketed: ``degC/(kgf/cm2)``.
+    """
+    top_code, bottom_code = (f"({u.code})" if "/" in u.code else u.code for u in (top, bottom))
+    return {"value": _plain(value_si * bottom.scale / top.scale), "unit": f"{top_code}/{bottom_code}"}
 
 
 def difference(value_kelvin: Numbers, unit: Unit) -> dict[str, Any]:
@@ -124,6 +196,33 @@ def difference(value_kelvin: Numbers, unit: Unit) -> dict[str, Any]:
 def _plain(value: Numbers) -> Numbers:
     """A float, or the array itself: orjson writes float arrays directly, with no list in between."""
     return np.ascontiguousarray(value) if isinstance(value, np.ndarray) and value.ndim else float(value)
+
+
+_EXACT_POWERS = 22
+"""10**k is exact in double precision up to k = 22: the fast rounding below divides by such powers only."""
+
+
+def significant(value: Numbers, digits: int) -> Numbers:
+    """``value`` rounded to ``digits`` significant digits: the double nearest the rounded decimal, so that
+    JSON and CSV show it in its short form (``95.2498``).
+
+    Vectorised: x is scaled by an exact power of ten, rounded to a whole number and scaled back, which
+    gives the correctly rounded decimal; the rare numbers that need a power beyond 10**22 (below about
+    1e-8 at 15 digits) are rounded through their decimal text.
+
+    >>> significant(95.24976013, 6), significant(-0.000123456, 2), significant(123456.0, 2)
+    (95.2498, -0.00012, 120000.0)
+    """
+    array = np.asarray(value, dtype=float)
+    with np.errstate(divide="ignore"):
+        magnitude = np.floor(np.log10(np.abs(array)))
+    exponent = np.where(np.isfinite(magnitude), digits - 1 - magnitude, 0).astype(np.int64)
+    scale = np.power(10.0, np.minimum(np.abs(exponent), _EXACT_POWERS))
+    out = np.where(exponent >= 0, np.round(array * scale) / scale, np.round(array / scale) * scale)
+    far = np.abs(exponent) > _EXACT_POWERS
+    if far.any():
+        out[far] = [float(f"{v:.{digits}g}") for v in array[far].tolist()]
+    return out if out.ndim else float(out)
 
 
 def format_value(value_si: float, unit: Unit, digits: int = 6) -> str:

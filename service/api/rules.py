@@ -6,6 +6,7 @@ names the limit in the request's own unit, and appends cautions to ``warnings``.
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from typing import Any
 
@@ -14,10 +15,11 @@ from flask import current_app
 from numpy.typing import NDArray
 
 from service.api.operations import Input, Inputs
-from service.api.problems import Problem
-from service.api.quantities import any_true, format_value
+from service.api.problems import Problem, invalid
+from service.api.quantities import any_true, format_value, quantity
 from service.fluids.catalog import Catalog, Fluid, LiquidDensity
-from service.physics import atmosphere
+from service.fluids.cautions import Caution, Warnings
+from service.physics import atmosphere, site
 from service.physics.units import Unit
 
 GRAVITY = 9.80665
@@ -53,7 +55,9 @@ def catalog() -> Catalog:
 
 
 def resolve_catalog_fluid(name: str) -> Fluid:
-    """The catalog fluid named ``name``; 404 listing the closest names otherwise."""
+    """The catalog fluid named ``name``; 400 for an empty name, 404 listing the closest names otherwise."""
+    if not name.strip():
+        raise invalid("fluid", "is empty: give a catalog id, CAS number or alias (GET /v1/fluids lists them)")
     fluid = catalog().get(name)
     if fluid is None:
         close = catalog().close_matches(name)
@@ -127,6 +131,12 @@ class LocalPressure:
     atmosphere: NDArray[np.float64] | None = None
     note: str | None = None
     standard_day: bool = False
+    source: str | None = None
+    """The input the pressure is, unchanged (``pressure`` or ``barometric_pressure``), if it is one."""
+
+    def quantity(self, inputs: Inputs, unit: Unit) -> dict[str, Any]:
+        """The pressure as ``{"value", "unit"}``: an input that it is comes back as sent."""
+        return inputs.echo(self.source, unit) if self.source else quantity(self.value, unit)
 
 
 def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
@@ -146,14 +156,16 @@ def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
             {"sea_level_pressure": ["needs elevation"]},
         )
     if baro is not None:
+        low, high = site.AIR_PRESSURE_RANGE
+        hint = _unit_hint(baro, inputs.units["pressure"], low, high)
         refuse_outside(
             "barometric_pressure",
             baro,
             inputs.units["pressure"],
-            0.0,
-            None,
-            "zero ({limit}): an absolute pressure is positive",
-            "",
+            low,
+            high,
+            "{limit}, the lowest air pressure where people work (the standard atmosphere about 7,000 m up)" + hint,
+            "{limit}, above the air pressure at the bottom of the deepest mines" + hint,
         )
         return baro
     if elevation is None:
@@ -168,6 +180,22 @@ def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
         "the top of the standard atmosphere, {limit}",
     )
     return atmosphere.pressure_at_elevation(elevation, sea_level_pressure(inputs))
+
+
+def _unit_hint(values: NDArray, unit: Unit, low: float, high: float) -> str:
+    """For a barometer reading outside the band: the units in which its first such number would fit."""
+    outside = np.flatnonzero((np.ravel(values) < low) | (np.ravel(values) > high))
+    if not outside.size:
+        return ""
+    number = float(unit.from_si(float(np.ravel(values)[outside[0]])))
+    fits = [u for u in site.units_read_as_air_pressure(number) if u.code != unit.code]
+    if not fits:
+        return ""
+    fits = [u for u in fits if math.isclose(u.scale, fits[0].scale, rel_tol=1e-3)]  # hPa and mbar, Torr and mmHg
+    return (
+        f"; a barometer reading of {number:g} {' or '.join(u.code for u in fits)} would be "
+        f"{format_value(number * fits[0].scale, unit)}: check the unit it was sent in"
+    )
 
 
 def sea_level_pressure(inputs: Inputs) -> NDArray[np.float64] | float:
@@ -210,7 +238,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
             "zero ({limit}): an absolute pressure is positive",
             "",
         )
-        return LocalPressure(pressure)
+        return LocalPressure(pressure, source="pressure")
     atmosphere_pressure = local_atmosphere(inputs)
     if atmosphere_pressure is None:
         field = "gauge_pressure" if gauge is not None else "pressure"
@@ -225,7 +253,8 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
         standard_day = inputs.get("sea_level_pressure") is None
         note = STANDARD_ATMOSPHERE_WARNING if standard_day else SCALED_ATMOSPHERE_WARNING
     if gauge is None:
-        return LocalPressure(atmosphere_pressure, atmosphere_pressure, note, standard_day)
+        source = "barometric_pressure" if inputs.get("barometric_pressure") is not None else None
+        return LocalPressure(atmosphere_pressure, atmosphere_pressure, note, standard_day, source)
     refuse_outside(
         "gauge_pressure",
         gauge,
@@ -238,7 +267,7 @@ def local_pressure(inputs: Inputs) -> LocalPressure:
     return LocalPressure(atmosphere_pressure + gauge, atmosphere_pressure, note, standard_day)
 
 
-def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapolate: bool, warnings: list[str]) -> None:
+def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapolate: bool, warnings: Warnings) -> None:
     """Refuse pressures at which ``fluid`` has no boiling point; note extrapolation."""
     refuse_outside(
         "pressure",
@@ -255,7 +284,7 @@ def check_boiling_pressure(fluid: Fluid, pressure: NDArray, unit: Unit, extrapol
 
 
 def check_liquid_temperature(
-    fluid: Fluid, temperature: NDArray, unit: Unit, extrapolate: bool, warnings: list[str], field: str = "temperature"
+    fluid: Fluid, temperature: NDArray, unit: Unit, extrapolate: bool, warnings: Warnings, field: str = "temperature"
 ) -> None:
     """Refuse temperatures at which ``fluid`` has no vapor pressure over its liquid; note extrapolation."""
     refuse_outside(
@@ -272,6 +301,41 @@ def check_liquid_temperature(
     )
 
 
+DEPTH_ITERATIONS = 4
+"""The head changes the boiling point, which changes the density: the pressure converges in 3 rounds."""
+
+
+def boiling_pressure_at_depth(
+    fluid: Fluid, surface: NDArray, inputs: Inputs, warnings: Warnings
+) -> tuple[NDArray, LiquidDensity | None]:
+    """The pressure [Pa] at ``depth`` below the surface of the boiling liquid, and the density used.
+
+    The surface pressure plus the head of the liquid above: rho(T_sat) g depth, with the density at
+    the saturation temperature of the deeper point, found by fixed-point iteration. Without ``depth``,
+    the surface pressure itself.
+    """
+    depth = inputs.get("depth")
+    if depth is None:
+        return surface, None
+    refuse_outside("depth", depth, inputs.units["length"], 0.0, None, "the liquid surface, {limit}", "")
+    density = require_liquid_density(fluid)
+    pressure = surface
+    for _ in range(DEPTH_ITERATIONS):
+        pressure = surface + density.density(fluid.saturation_temperature(pressure)) * GRAVITY * depth
+    check_boiling_pressure(fluid, pressure, inputs.units["pressure"], inputs.options["extrapolate"], warnings)
+    return pressure, density
+
+
+def temperature_uncertainty(slope: NDArray, inputs: Inputs) -> NDArray | None:
+    """|dT/dp| [K/Pa] times the request's ``pressure_uncertainty`` [Pa]: the boiling point's standard
+    uncertainty from the pressure reading alone [K]; None without it."""
+    uncertainty = inputs.get("pressure_uncertainty")
+    if uncertainty is None:
+        return None
+    refuse_outside("pressure_uncertainty", uncertainty, inputs.units["pressure"], 0.0, None, "zero, {limit}", "")
+    return np.abs(slope) * uncertainty
+
+
 def _below_triple(fluid: Fluid, liquid: bool = False) -> str:
     if fluid.lower_limit_note:
         return fluid.lower_limit_note
@@ -286,7 +350,7 @@ def _check_stated_range(
     reach: tuple[float, float],
     fluid: Fluid,
     extrapolate: bool,
-    warnings: list[str],
+    warnings: Warnings,
 ) -> None:
     """Refuse values outside the equation's stated range, or with ``extrapolate`` outside its reach, and warn."""
     low, high = stated
@@ -300,25 +364,34 @@ def _check_stated_range(
     limit = f"{{limit}}, as far as the {fluid.method} for {fluid.name} can be extrapolated"
     refuse_outside(field, values, unit, reach[0], reach[1], limit, limit)
     warnings.append(
-        f"{int(outside.sum())} value(s) of {field} lie outside {where}, "
-        f"{format_value(low, unit)} to {format_value(high, unit)}: extrapolated, accuracy unknown."
+        Caution(
+            f"{field} lies outside {where}, {format_value(low, unit)} to {format_value(high, unit)}: "
+            "extrapolated, accuracy unknown.",
+            outside,
+        )
     )
 
 
-def note_near_critical(fluid: Fluid, temperature: NDArray, unit: Unit, warnings: list[str]) -> None:
+def note_near_critical(fluid: Fluid, temperature: NDArray, unit: Unit, warnings: Warnings) -> None:
     """Warn when a saturation temperature lies within 2 % of the critical temperature."""
     near = temperature > NEAR_CRITICAL * fluid.critical_temperature
     if any_true(near):
         warnings.append(
-            f"{int(near.sum())} value(s) lie within 2 % of the critical temperature of {fluid.name} "
-            f"({format_value(fluid.critical_temperature, unit)}): properties change steeply there and small "
-            "errors in pressure or temperature grow large."
+            Caution(
+                f"Within 2 % of the critical temperature of {fluid.name} "
+                f"({format_value(fluid.critical_temperature, unit)}): properties change steeply there and small "
+                "errors in pressure or temperature grow large.",
+                near,
+            )
         )
 
 
 SITE_INPUTS = {
     "barometric_pressure": Input(
-        "pressure", "Absolute air pressure measured on site (a barometer reading, not reduced to sea level)."
+        "pressure",
+        "Absolute air pressure measured on site (a barometer reading, not reduced to sea level), between "
+        "40 kPa and 140 kPa: the band air pressure takes where people work.",
+        reference="absolute",
     ),
     "elevation": Input(
         "length",
@@ -326,23 +399,39 @@ SITE_INPUTS = {
         "Atmosphere 1976 gives its air pressure.",
     ),
     "sea_level_pressure": Input(
-        "pressure", "A weather station's sea-level pressure (QNH); scales the standard atmosphere at `elevation`."
+        "pressure",
+        "A weather station's sea-level pressure (QNH); scales the standard atmosphere at `elevation`.",
+        reference="absolute",
     ),
 }
 PRESSURE_INPUTS = {
-    "pressure": Input("pressure", "Absolute pressure on the liquid."),
+    "pressure": Input("pressure", "Absolute pressure on the liquid.", reference="absolute"),
     "gauge_pressure": Input(
-        "pressure", "Pressure relative to the local atmosphere, as a gauge reads it; negative for vacuum."
+        "pressure",
+        "Pressure relative to the local atmosphere, as a gauge reads it; negative for vacuum. Its own unit may "
+        "be a gauge spelling (psig, barg, kPag).",
+        reference="gauge",
     ),
     **SITE_INPUTS,
 }
 """The ways a request may give the pressure on a liquid; see :func:`local_pressure`."""
 
+INSTRUMENT_INPUTS = {
+    "pressure_uncertainty": Input(
+        "pressure", "Standard uncertainty of the pressure reading; gives the boiling point's uncertainty."
+    ),
+    "depth": Input(
+        "length",
+        "How far below the liquid surface the sensor sits: the liquid there boils at the surface pressure plus "
+        "its own hydrostatic head.",
+    ),
+}
+
 
 def provenance(
     fluid: Fluid | None,
     atmosphere_note: str | None,
-    warnings: list[str],
+    warnings: Warnings,
     density: LiquidDensity | None = None,
 ) -> dict[str, Any]:
     """``method``, ``source`` and ``warnings`` of an answer from the equations it used."""

@@ -4,7 +4,9 @@ from __future__ import annotations
 
 from typing import Any
 
+import numpy as np
 from flask import Blueprint
+from numpy.typing import NDArray
 
 from service.api import schemas
 from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
@@ -12,20 +14,24 @@ from service.api.operations import Input, Inputs, Operation
 from service.api.problems import Problem
 from service.api.quantities import difference, largest, quantity, ratio
 from service.api.rules import (
-    GRAVITY,
+    INSTRUMENT_INPUTS,
     PRESSURE_INPUTS,
     SITE_INPUTS,
     WEATHER_SPREAD,
+    LocalPressure,
+    boiling_pressure_at_depth,
     check_boiling_pressure,
     check_liquid_temperature,
     local_pressure,
     note_near_critical,
     provenance,
     refuse_outside,
-    require_liquid_density,
     sea_level_pressure,
+    temperature_uncertainty,
 )
+from service.fluids.cautions import Warnings
 from service.physics import atmosphere
+from service.physics.units import Unit
 
 blueprint = Blueprint("saturation", __name__)
 
@@ -35,68 +41,56 @@ ELEVATION_WARNING = (
 )
 
 
-INSTRUMENT_INPUTS = {
-    "pressure_uncertainty": Input(
-        "pressure", "Standard uncertainty of the pressure reading; gives boiling_point_uncertainty."
-    ),
-    "depth": Input(
-        "length",
-        "How far below the liquid surface the sensor sits: the liquid there boils at the surface pressure plus "
-        "its own hydrostatic head.",
-    ),
-}
-_DEPTH_ITERATIONS = 4  # the head changes the boiling point, which changes the density: converges in 3
-
-
 def boiling_point(inputs: Inputs) -> dict[str, Any]:
     fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
-    warnings: list[str] = []
+    warnings: Warnings = []
     local = local_pressure(inputs)
     check_boiling_pressure(fluid, local.value, p_unit, inputs.options["extrapolate"], warnings)
-    answer: dict[str, Any] = {}
-    pressure, depth, density = local.value, inputs.get("depth"), None
-    if depth is not None:
-        refuse_outside("depth", depth, inputs.units["length"], 0.0, None, "the liquid surface, {limit}", "")
-        density = require_liquid_density(fluid)
-        for _ in range(_DEPTH_ITERATIONS):
-            pressure = local.value + density.density(fluid.saturation_temperature(pressure)) * GRAVITY * depth
-        check_boiling_pressure(fluid, pressure, p_unit, inputs.options["extrapolate"], warnings)
-        answer["surface_pressure"] = quantity(local.value, p_unit)
+    pressure, density = boiling_pressure_at_depth(fluid, local.value, inputs, warnings)
     temperature = fluid.saturation_temperature(pressure)
     slope = 1.0 / fluid.saturation_pressure_slope(temperature)
     note_near_critical(fluid, temperature, t_unit, warnings)
+    answer: dict[str, Any] = {"fluid": fluid.id}
+    if inputs.get("gauge_pressure") is not None:
+        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
+    if density is None:
+        answer["pressure"] = local.quantity(inputs, p_unit)
+    else:
+        answer["pressure"] = quantity(pressure, p_unit)
+        answer["surface_pressure"] = local.quantity(inputs, p_unit)
     answer["boiling_point"] = quantity(temperature, t_unit)
-    uncertainty = inputs.get("pressure_uncertainty")
+    uncertainty = temperature_uncertainty(slope, inputs)
     if uncertainty is not None:
-        refuse_outside("pressure_uncertainty", uncertainty, p_unit, 0.0, None, "zero, {limit}", "")
-        answer["boiling_point_uncertainty"] = difference(slope * uncertainty, t_unit)
-    note = local.note
-    if local.standard_day:
-        spread = difference(largest(slope * WEATHER_SPREAD * local.atmosphere, empty=0.0), t_unit)
-        note = (
-            f"{note} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
-            f"boiling point by about {spread['value']:.2g} {spread['unit']}."
-        )
+        answer["boiling_point_uncertainty"] = difference(uncertainty, t_unit)
     return {
-        "fluid": fluid.id,
-        "pressure": quantity(pressure, p_unit),
         **answer,
         "sensitivity": ratio(slope, t_unit, p_unit),
-        **provenance(fluid, note, warnings, density),
+        **provenance(fluid, weather_note(local, slope, t_unit), warnings, density),
     }
+
+
+def weather_note(local: LocalPressure, slope: NDArray, t_unit: Unit) -> str | None:
+    """The caution owed for the local atmosphere; on a standard day, with how far the weather moves the answer."""
+    if not local.standard_day:
+        return local.note
+    spread = difference(largest(np.abs(slope) * WEATHER_SPREAD * local.atmosphere, empty=0.0), t_unit)
+    return (
+        f"{local.note} A {WEATHER_SPREAD:.0%} change in the air pressure moves this "
+        f"boiling point by about {spread['value']:.2g} {spread['unit']}."
+    )
 
 
 def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
     fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
     temperature = inputs.get("temperature")
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
-    warnings: list[str] = []
+    warnings: Warnings = []
     check_liquid_temperature(fluid, temperature, t_unit, inputs.options["extrapolate"], warnings)
     note_near_critical(fluid, temperature, t_unit, warnings)
     return {
         "fluid": fluid.id,
-        "temperature": quantity(temperature, t_unit),
+        "temperature": inputs.echo("temperature", t_unit),
         "vapor_pressure": quantity(fluid.saturation_pressure(temperature), p_unit),
         "sensitivity": ratio(fluid.saturation_pressure_slope(temperature), p_unit, t_unit),
         **provenance(fluid, None, warnings),
@@ -112,13 +106,13 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
             "Give pressure, or boiling_point (with fluid), but not both.",
             {"pressure": ["give pressure or boiling_point"], "boiling_point": ["give boiling_point or pressure"]},
         )
-    warnings: list[str] = []
+    warnings: Warnings = []
     answer: dict[str, Any] = {}
     fluid = resolve_fluid(inputs.options["fluid"], inputs.units)  # an unknown name is a 404 either way
     if boiling is not None:
         check_liquid_temperature(fluid, boiling, t_unit, inputs.options["extrapolate"], warnings, "boiling_point")
         pressure = fluid.saturation_pressure(boiling)
-        answer = {"fluid": fluid.id, "boiling_point": quantity(boiling, t_unit)}
+        answer = {"fluid": fluid.id, "boiling_point": inputs.echo("boiling_point", t_unit)}
     sea_level = sea_level_pressure(inputs)
     scale = sea_level / atmosphere.SEA_LEVEL_PRESSURE
     refuse_outside(
@@ -132,7 +126,7 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
     )
     return {
         "elevation": quantity(atmosphere.elevation_at_pressure(pressure, sea_level), inputs.units["length"]),
-        "pressure": quantity(pressure, p_unit),
+        "pressure": quantity(pressure, p_unit) if boiling is not None else inputs.echo("pressure", p_unit),
         **answer,
         **provenance(fluid if boiling is not None else None, ELEVATION_WARNING, warnings),
     }

@@ -33,11 +33,12 @@ TemperatureDifference = _quantity_schema(
     "TemperatureDifference",
     {"enum": ["K", "degR"], "description": "K for kelvin and Celsius requests, degR for Fahrenheit and Rankine."},
 )
+_UNIT_CODE = r"([A-Za-z][A-Za-z0-9]*|\([A-Za-z][A-Za-z0-9]*/[A-Za-z][A-Za-z0-9]*\))"
 Slope = _quantity_schema(
     "Slope",
     {
-        "pattern": r"^[A-Za-z]+/[A-Za-z]+$",
-        "description": "A ratio of units, e.g. `degC/kPa` or `kPa/degC`; "
+        "pattern": f"^{_UNIT_CODE}/{_UNIT_CODE}$",
+        "description": "A ratio of units, e.g. `degC/kPa`, `kPa/degC` or `degC/(kgf/cm2)`; "
         "temperatures in a slope count as differences (1 degC = 1 K, 1 degF = 1 degR).",
     },
 )
@@ -49,6 +50,12 @@ _FLUID = "Catalog id of the fluid, or the name of a fluid the request defined."
 class Provenance(Schema):
     """What every computed answer says of how it was computed."""
 
+    tag = fields.Raw(
+        metadata={
+            "description": "The request's `tag`, echoed: one label, or one per point in an array answer.",
+            "oneOf": [{"type": "string"}, {"type": "array", "items": {"type": "string"}}],
+        }
+    )
     method = fields.String(required=True, metadata={"description": "The published name of the equation(s) used."})
     source = fields.String(required=True, metadata={"description": "Citation of the equation(s)."})
     warnings = fields.List(
@@ -56,7 +63,8 @@ class Provenance(Schema):
         required=True,
         metadata={
             "description": "Cautions about this answer: standard atmosphere in place of a barometer, "
-            "extrapolation, nearness to the critical point."
+            "extrapolation, nearness to the critical point. In an array answer each begins with the points it "
+            "concerns: `all points: ...`, or `points 0, 3-5: ...` (indexes from 0)."
         },
     )
 
@@ -67,7 +75,11 @@ class FluidAnswer(Provenance):
     fluid = fields.String(required=True, metadata={"description": _FLUID})
 
 
+_GAUGE = {"description": "The gauge reading sent, beside the absolute `pressure` it gives."}
+
+
 class BoilingPointAnswer(FluidAnswer):
+    gauge_pressure = fields.Nested(Pressure, metadata=_GAUGE)
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
     boiling_point = fields.Nested(Temperature, required=True, metadata={"description": "Saturation temperature."})
     sensitivity = fields.Nested(
@@ -89,9 +101,24 @@ class BoilingPointAnswer(FluidAnswer):
 
 
 class SaturationMarginAnswer(FluidAnswer):
-    pressure = fields.Nested(Pressure, required=True, metadata={"description": "The absolute pressure used."})
+    gauge_pressure = fields.Nested(Pressure, metadata=_GAUGE)
+    pressure = fields.Nested(
+        Pressure,
+        required=True,
+        metadata={"description": "The absolute pressure used: at the sensor, with `depth`."},
+    )
+    surface_pressure = fields.Nested(
+        Pressure, metadata={"description": "With `depth`: the pressure on the liquid surface."}
+    )
     temperature = fields.Nested(Temperature, required=True, metadata={"description": "The measured temperature."})
     saturation_temperature = fields.Nested(Temperature, required=True)
+    saturation_temperature_uncertainty = fields.Nested(
+        TemperatureDifference,
+        metadata={
+            "description": "With `pressure_uncertainty`: |dT/dp| times it. The `saturated` band is `tolerance` plus "
+            "twice this."
+        },
+    )
     margin = fields.Nested(
         TemperatureDifference,
         required=True,
@@ -111,6 +138,7 @@ class SaturationMarginAnswer(FluidAnswer):
 
 
 class NpshAnswer(FluidAnswer):
+    gauge_pressure = fields.Nested(Pressure, metadata=_GAUGE)
     pressure = fields.Nested(
         Pressure, required=True, metadata={"description": "Absolute pressure on the liquid surface."}
     )

@@ -1,12 +1,11 @@
 """The array path: broadcasting, limits, exact equality with single answers, CSV, caching."""
 
-import csv
-import io
 import random
 
 import pytest
 
 from service import create_app
+from tests.conftest import csv_answer
 
 # One example per computing path: a scalar query, and the quantity to turn into an array.
 PATHS = [
@@ -106,7 +105,7 @@ def test_csv_round_trip(client) -> None:
     text = "gauge_pressure [bar]\n-0.6\n0\n9.5\n"
     r = client.post("/v1/boiling-point?elevation=1420&format=csv", data=text, content_type="text/csv")
     assert r.status_code == 200 and r.mimetype == "text/csv"
-    rows = list(csv.DictReader(io.StringIO(r.get_data(as_text=True))))
+    _, rows = csv_answer(r.get_data(as_text=True))
     json_answer = client.post(
         "/v1/boiling-point", json={"gauge_pressure": {"value": [-0.6, 0, 9.5], "unit": "bar"}, "elevation": 1420}
     ).get_json()
@@ -133,9 +132,9 @@ def test_bad_csv_bodies(client, text: str) -> None:
 def test_csv_rows_with_too_many_or_too_few_cells_are_refused(client) -> None:
     # Three cells and then one add up to two rows of two, but they are not: refused, naming the row.
     r = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2,3\n4\n", content_type="text/csv")
-    assert r.status_code == 400 and "row 1 below the header has 3" in r.get_json()["detail"]
+    assert r.status_code == 400 and "row 2 of the file (the header is row 1) has 3" in r.get_json()["detail"]
     blank = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2\n\n3,4\n", content_type="text/csv")
-    assert blank.status_code == 400 and "row 2 below the header has 1" in blank.get_json()["detail"]
+    assert blank.status_code == 400 and "row 3 of the file (the header is row 1) has 1" in blank.get_json()["detail"]
     for ending in ("\r\n", "\r"):  # Windows, and old Mac spreadsheets
         body = f"pressure{ending}100{ending}50{ending}"
         answer = client.post("/v1/boiling-point", data=body, content_type="text/csv")

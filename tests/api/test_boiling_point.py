@@ -101,3 +101,24 @@ def test_near_critical_warning(client) -> None:
 def test_fluid_by_alias_and_cas(client) -> None:
     for name in ("H2O", "7732-18-5", "Steam"):
         assert client.get(f"/v1/boiling-point?pressure=100&fluid={name}").get_json()["fluid"] == "water"
+
+
+@pytest.mark.parametrize(
+    ("reading", "meant"),
+    [("1013", "1013 hPa or mbar would be 101.3 kPa"), ("29.92", "29.92 inHg would be 101.321 kPa")],
+)
+def test_a_barometer_reading_in_the_wrong_unit_is_refused_naming_the_band(client, reading: str, meant: str) -> None:
+    # Sent without pressure_unit, 1013 (hPa) would be 1013 kPa and boil near 180 degC; 29.92 (inHg) near 69 degC.
+    r = client.get(f"/v1/boiling-point?barometric_pressure={reading}")
+    assert r.status_code == 422
+    detail = r.get_json()["detail"]
+    assert ("140 kPa" in detail or "40 kPa" in detail) and meant in detail, detail
+    ok = client.get("/v1/boiling-point?barometric_pressure=1013&pressure_unit=hPa")
+    assert ok.status_code == 200
+
+
+def test_the_gauge_reading_is_echoed_beside_the_absolute_pressure(client) -> None:
+    body = client.get("/v1/boiling-point?gauge_pressure=950&barometric_pressure=85.4").get_json()
+    assert body["gauge_pressure"] == {"value": 950.0, "unit": "kPa"}
+    assert body["pressure"] == {"value": pytest.approx(1035.4), "unit": "kPa"}
+    assert "gauge_pressure" not in client.get("/v1/boiling-point?pressure=100").get_json()

@@ -27,7 +27,7 @@ def problem(response, status: int) -> dict:
         ("pressure=30000", 422, "pressure"),  # above the critical point
         ("pressure=100&pressure_unit=furlong", 400, "pressure_unit"),
         ("pressure=100&temperature_unit=kPa", 400, "temperature_unit"),
-        ("pressure=100&fluid=", 404, "fluid"),
+        ("pressure=100&fluid=", 400, "fluid"),
         ("pressure=100&extrapolate=maybe", 400, "extrapolate"),
         ("", 400, "pressure"),
         ("gauge_pressure=100", 400, "gauge_pressure"),
@@ -88,9 +88,20 @@ def test_post_body_must_be_a_json_object(client) -> None:
     problem(client.post("/v1/boiling-point", json=[100]), 400)
 
 
-def test_post_query_takes_only_units(client) -> None:
-    problem(client.post("/v1/boiling-point?pressure=100", json={}), 400)
+def test_post_query_takes_options_and_single_values_once(client) -> None:
+    # The query string of a POST carries what a GET's does; a name given in the query and the body is refused,
+    # but for a unit given alike in both.
+    both = client.post("/v1/boiling-point?fluid=ethanol&digits=4", json={"pressure": [50, 100]}).get_json()
+    assert both["fluid"] == "ethanol" and both["boiling_point"]["value"] == [61.35, 77.93]
+    single = client.post("/v1/boiling-point?pressure=100", json={"tag": ["a", "b"]}).get_json()
+    assert single["tag"] == ["a", "b"] and single["pressure"]["value"] == [100.0, 100.0]
+    problem(client.post("/v1/boiling-point?pressure=100", json={"pressure": 100}), 400)
     problem(client.post("/v1/boiling-point?pressure_unit=kPa", json={"pressure": 100, "pressure_unit": "psi"}), 400)
+    assert (
+        client.post("/v1/boiling-point?pressure_unit=kPa", json={"pressure": 1, "pressure_unit": "KPA"}).status_code
+        == 200
+    )
+    problem(client.post("/v1/boiling-point?pressure=١٠٠", json={}), 400)
 
 
 def test_too_many_points(app, client) -> None:
@@ -122,3 +133,62 @@ def test_values_that_overflow_in_si_are_refused(client, query: str) -> None:
     path = "/v1/atmosphere" if "sea_level" in query else "/v1/npsh-available"
     body = problem(client.get(f"{path}?{query}"), 422)  # found by the fuzz test
     assert "too large" in body["detail"]
+
+
+@pytest.mark.parametrize(
+    ("query", "field", "says"),
+    [
+        # 10 mPa would be 1e-8 of 10 MPa: letter case carries the SI prefix (SI Brochure, 9th ed., table 7).
+        ("pressure=10&pressure_unit=mPa", "pressure_unit", "millipascal"),
+        ("pressure=1&pressure_unit=Mbar", "pressure_unit", "megabar"),
+        ("pressure=1&pressure_unit=MBAR", "pressure_unit", "could be Mbar (the megabar) or mbar (millibar)"),
+        ("pressure=10&pressure_unit=mpa", "pressure_unit", "could be MPa (megapascal) or mPa (the millipascal)"),
+        ("gauge_pressure=10&elevation=1420&pressure_unit=psia", "gauge_pressure", "is a gauge reading"),
+        ("pressure=10&pressure_unit=psig", "pressure_unit", "marks a gauge reading"),
+    ],
+)
+def test_units_whose_case_or_kind_is_wrong_are_refused(client, query: str, field: str, says: str) -> None:
+    body = problem(client.get(f"/v1/boiling-point?{query}"), 400)
+    assert says in body["errors"][field][0], body
+
+
+def test_gauge_and_absolute_spellings_on_their_own_quantities(client) -> None:
+    gauge = {"gauge_pressure": {"value": 10, "unit": "psig"}, "barometric_pressure": {"value": 0.854, "unit": "bara"}}
+    body = client.post("/v1/boiling-point?pressure_unit=psi", json=gauge).get_json()
+    assert body["gauge_pressure"] == {"value": 10.0, "unit": "psi"}
+    assert body["pressure"]["value"] == pytest.approx(10 + 85_400 / 6894.757293168)
+    wrong = {"gauge_pressure": {"value": 10, "unit": "psia"}, "elevation": 1420}
+    assert "marks an absolute pressure" in problem(client.post("/v1/boiling-point", json=wrong), 400)["detail"]
+    absolute = {"pressure": {"value": 2, "unit": "barg"}}
+    assert "marks a gauge reading" in problem(client.post("/v1/boiling-point", json=absolute), 400)["detail"]
+    # Water columns and the technical atmosphere (units module): 1 kgf/cm2 = 98.0665 kPa.
+    kgf = client.get("/v1/boiling-point?pressure=1&pressure_unit=kgf/cm2").get_json()
+    assert kgf["sensitivity"]["unit"] == "degC/(kgf/cm2)"
+
+
+@pytest.mark.parametrize("number", ["١٠٠", "１００", "1_000", " 100", "+100", ".5", "0x10", "1e999"])
+def test_query_numbers_take_the_json_number_syntax_only(client, number: str) -> None:
+    body = problem(client.get(f"/v1/boiling-point?pressure={number}"), 400)
+    assert "pressure" in body["errors"]
+
+
+def test_errors_come_as_text_to_a_request_that_asked_for_text(client) -> None:
+    for r in (
+        client.get("/v1/boiling-point?pressure=-5&format=text"),
+        client.get("/v1/boiling-point?pressure=-5", headers={"Accept": "text/plain"}),
+        client.post("/v1/boiling-point?format=csv", json={"pressure": [-5]}),
+    ):
+        assert r.status_code == 422 and r.mimetype == "text/plain"
+        text = r.get_data(as_text=True)
+        assert "status: 422" in text and "error: pressure: " in text
+    assert client.get("/v1/boiling-point?pressure=-5").mimetype == "application/problem+json"
+
+
+def test_the_body_limit_is_named(app) -> None:
+    small = app.test_client()
+    app.config["MAX_CONTENT_LENGTH"], before = 1000, app.config["MAX_CONTENT_LENGTH"]
+    try:
+        body = small.post("/v1/atmosphere", json={"elevation": [1000.0] * 500}).get_json()
+        assert body["status"] == 413 and "the limit is 1000 bytes" in body["detail"]
+    finally:
+        app.config["MAX_CONTENT_LENGTH"] = before

@@ -1,7 +1,8 @@
 """Plain text for terminals and CSV for arrays: both parse back to the JSON values."""
 
-import csv
-import io
+import pytest
+
+from tests.conftest import csv_answer
 
 
 def parse_text(text: str) -> dict:
@@ -39,7 +40,7 @@ def test_csv_answer_parses_back(client) -> None:
         client.post("/v1/saturation-margin", json=payload, headers={"Accept": "text/csv"}),
     ):
         assert r.mimetype == "text/csv"
-        rows = list(csv.DictReader(io.StringIO(r.get_data(as_text=True))))
+        _, rows = csv_answer(r.get_data(as_text=True))
         assert len(rows) == 3
         assert [float(row["saturation_temperature [degC]"]) for row in rows] == body["saturation_temperature"]["value"]
         assert [float(row["margin [K]"]) for row in rows] == body["margin"]["value"]
@@ -50,3 +51,75 @@ def test_csv_answer_parses_back(client) -> None:
 def test_format_values_are_checked(client) -> None:
     assert client.get("/v1/boiling-point?pressure=100&format=xml").status_code == 400
     assert client.post("/v1/boiling-point?format=text", json={"pressure": 100}).status_code == 400
+
+
+def test_array_warnings_name_the_points_they_concern(client) -> None:
+    # r134a: Tc = 101.06 degC; 99.5 degC lies within 2 % of it, 10 degC does not (the catalog entry).
+    body = client.post("/v1/vapor-pressure", json={"fluid": "r134a", "temperature": [10, 99.5, 20, 99.8]}).get_json()
+    near = [w for w in body["warnings"] if "critical temperature" in w]
+    assert near == [next(w for w in near if w.startswith("points 1, 3: "))]
+    # n-dodecane's equation is stated from 295 K (21.85 degC); its triple point is at 263.57 K (the catalog entry).
+    extrapolated = client.post(
+        "/v1/vapor-pressure?extrapolate=true", json={"fluid": "n-dodecane", "temperature": [0, 5, 30, 10]}
+    ).get_json()
+    assert any(w.startswith("points 0-1, 3: temperature lies outside") for w in extrapolated["warnings"])
+    atmosphere = client.post("/v1/boiling-point", json={"elevation": [0, 1420]}).get_json()
+    assert any(w.startswith("all points: The local atmospheric pressure") for w in atmosphere["warnings"])
+    single = client.get("/v1/vapor-pressure?fluid=r134a&temperature=99.5").get_json()
+    assert any(w.startswith("Within 2 %") for w in single["warnings"])
+
+
+def test_csv_answers_keep_method_source_and_warnings_per_row(client) -> None:
+    payload = {"fluid": "r134a", "temperature": [10, 99.5, 20], "tag": ["TI-1", "TI-2", "TI-3"]}
+    body = client.post("/v1/vapor-pressure", json=payload).get_json()
+    notes, rows = csv_answer(client.post("/v1/vapor-pressure?format=csv", json=payload).get_data(as_text=True))
+    assert f"method: {body['method']}" in notes and f"source: {body['source']}" in notes
+    numbered = {n.split(": ", 1)[0]: n.split(": ", 1)[1] for n in notes if n.startswith("warning ")}
+    near = next(k for k, text in numbered.items() if "critical temperature" in text)
+    assert [row["tag"] for row in rows] == ["TI-1", "TI-2", "TI-3"]
+    assert [near.removeprefix("warning ") in row["warnings"].split() for row in rows] == [False, True, False]
+    assert [float(row["vapor_pressure [kPa]"]) for row in rows] == body["vapor_pressure"]["value"]
+
+
+def test_tags_are_echoed_in_every_format(client) -> None:
+    one = client.get("/v1/boiling-point?pressure=100&tag=PT-7").get_json()
+    assert one["tag"] == "PT-7"
+    text = parse_text(client.get("/v1/boiling-point?pressure=100&tag=PT-7&format=text").get_data(as_text=True))
+    assert text["tag"] == ["PT-7"]
+    many = client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": ["PT-7", "PT-8"]}).get_json()
+    assert many["tag"] == ["PT-7", "PT-8"]
+    shared = client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": "drum"}).get_json()
+    assert shared["tag"] == "drum"
+    assert client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": ["a", "b", "c"]}).status_code == 400
+    assert client.post("/v1/boiling-point", json={"pressure": 90, "tag": [1]}).status_code == 400
+    assert client.get("/v1/boiling-point?pressure=100&tag=").status_code == 400
+
+
+def test_digits_round_every_number_in_every_format(client) -> None:
+    query = "/v1/boiling-point?gauge_pressure=950&elevation=1420&digits=4"
+    body = client.get(query).get_json()
+    assert body["boiling_point"]["value"] == 181.4 and body["pressure"]["value"] == 1035.0
+    assert body["sensitivity"]["value"] == 0.04228
+    text = parse_text(client.get(query + "&format=text").get_data(as_text=True))
+    assert text["boiling_point"] == ["181.4 degC"]
+    _, rows = csv_answer(
+        client.post("/v1/boiling-point?format=csv&digits=3", json={"pressure": [101.325, 50]}).get_data(as_text=True)
+    )
+    assert rows[0]["boiling_point [degC]"] == "100.0"
+    full = client.get("/v1/boiling-point?gauge_pressure=950&elevation=1420").get_json()
+    assert full["boiling_point"]["value"] == 181.3948870639569  # without digits: every digit of the double
+    for bad in ("0", "18", "x", "١"):
+        assert client.get(f"/v1/boiling-point?pressure=100&digits={bad}").status_code == 400
+
+
+def test_echoed_inputs_come_back_as_sent(client) -> None:
+    body = client.get("/v1/vapor-pressure?temperature=200&temperature_unit=degF").get_json()
+    assert body["temperature"] == {"value": 200.0, "unit": "degF"}
+    margin = client.get(
+        "/v1/saturation-margin?temperature=0.1&temperature_unit=degC&pressure=14.7&pressure_unit=psi"
+    ).get_json()
+    assert margin["temperature"]["value"] == 0.1 and margin["pressure"]["value"] == 14.7
+    posted = client.post(
+        "/v1/boiling-point", json={"gauge_pressure": {"value": [10, 20], "unit": "psig"}, "barometric_pressure": 85.4}
+    ).get_json()
+    assert posted["gauge_pressure"] == {"value": pytest.approx([68.9475729, 137.8951459]), "unit": "kPa"}

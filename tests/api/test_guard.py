@@ -118,3 +118,12 @@ def test_metrics_content_type_and_no_python_version(client) -> None:
     r = client.get("/metrics")
     assert r.headers["Content-Type"].count("charset") == 1  # found by the fuzz test
     assert "python_info" not in r.get_data(as_text=True)
+
+
+def test_the_bearer_scheme_is_matched_without_regard_to_case() -> None:
+    # RFC 9110, section 11.1: the authentication scheme is a case-insensitive token.
+    keyed = create_app({"API_KEY": "kessock-fell-2026"}).test_client()
+    for scheme in ("Bearer", "bearer", "BEARER"):
+        r = keyed.get("/v1/boiling-point?pressure=100", headers={"Authorization": f"{scheme} kessock-fell-2026"})
+        assert r.status_code == 200, scheme
+    assert keyed.get("/v1/boiling-point?pressure=100", headers={"Authorization": "Basic kessock"}).status_code == 401

@@ -33,9 +33,13 @@ def outcome(load: Any, data: dict[str, Any]) -> tuple[str, Any]:
 
 
 @pytest.mark.parametrize("operation", OPERATIONS, ids=lambda o: o.path)
-@pytest.mark.parametrize("kind", ["query", "body", "units"])
+@pytest.mark.parametrize("kind", ["query", "body", "post_query"])
 def test_same_values_and_errors_as_schema_load(operation, kind) -> None:
-    schema = {"query": operation.query_schema, "body": operation.body_schema, "units": operation.units_schema}[kind]()
+    schema = {
+        "query": operation.query_schema,
+        "body": operation.body_schema,
+        "post_query": operation.post_query_schema,
+    }[kind]()
     for data in SAMPLES:
         expected, got = outcome(schema.load, data), outcome(FieldLoader(schema).load, data)
         assert got == expected, data

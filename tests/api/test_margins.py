@@ -98,3 +98,32 @@ def test_npsh_catalog_fluid_and_refusals(client) -> None:
     assert client.get("/v1/npsh-available?temperature=40&pressure=101.325").status_code == 400
     no_density = client.get("/v1/npsh-available?fluid=r22&temperature=0&pressure=600&static_head=1")
     assert no_density.status_code == 200 and "DIPPR 105" in no_density.get_json()["method"]
+
+
+def test_negative_npsh_available_warns_for_its_points(client) -> None:
+    # Water at 95 degC (p_sat = 84.6 kPa, IAPWS) from an open tank at 1,420 m (85.39 kPa) with a 2 m lift:
+    # about 0.08 m of pressure head less 2 m, negative; at 20 degC, about 6.5 m.
+    body = client.post(
+        "/v1/npsh-available", json={"temperature": [20, 95], "elevation": 1420, "static_head": -2.0}
+    ).get_json()
+    assert body["npsh_available"]["value"][1] < 0 < body["npsh_available"]["value"][0]
+    assert any(w.startswith("point 1: NPSH available is negative") for w in body["warnings"])
+
+
+def test_a_thermometer_check_reads_a_reading_error_not_superheat(client) -> None:
+    # A bath probe 0.15 m deep reads 0.13 K above the surface boiling point; the head of 0.15 m of boiling water
+    # raises the saturation temperature there by about 0.45 K, so the reading is below boiling, not above.
+    surface = client.get("/v1/boiling-point?barometric_pressure=85.39").get_json()["boiling_point"]["value"]
+    reading = surface + 0.13
+    flat = client.get(f"/v1/saturation-margin?barometric_pressure=85.39&temperature={reading}").get_json()
+    assert flat["state"] == "superheated"
+    deep = client.get(f"/v1/saturation-margin?barometric_pressure=85.39&temperature={reading}&depth=0.15").get_json()
+    assert deep["surface_pressure"]["value"] == 85.39 and deep["pressure"]["value"] > 86.8
+    assert deep["state"] == "subcooled" and deep["margin"]["value"] == pytest.approx(0.45 - 0.13, abs=0.03)
+    # A barometer good to 0.5 kPa: u(T) = 0.5 kPa x 0.319 K/kPa = 0.16 K, and the saturated band is 0.1 K + 2u.
+    uncertain = client.get(
+        f"/v1/saturation-margin?barometric_pressure=85.39&temperature={reading}&pressure_uncertainty=0.5"
+    ).get_json()
+    u = uncertain["saturation_temperature_uncertainty"]["value"]
+    assert u == pytest.approx(0.5 * 0.3187, rel=0.01)
+    assert uncertain["state"] == "saturated"

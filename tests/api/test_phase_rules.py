@@ -48,7 +48,7 @@ def test_out_of_stated_range_with_and_without_extrapolate(client) -> None:
 
 def test_near_the_critical_point_warns(client) -> None:
     body = client.get("/v1/vapor-pressure?fluid=r134a&temperature=100").get_json()  # Tc = 101.06 degC
-    assert any("within 2 % of the critical temperature" in w for w in body["warnings"])
+    assert any("Within 2 % of the critical temperature" in w for w in body["warnings"])
 
 
 def test_catalog_lists_forty_fluids_with_sources(client) -> None:

@@ -1,0 +1,179 @@
+"""Reading a POST body strictly: a JSON object, or a CSV table of numbers (and labels).
+
+Every refusal is a 400 that says what is wrong and where: an empty body, a number out of double
+range, a key given twice, a CSV cell by its row and column. A byte-order mark, which spreadsheets
+write at the start of a UTF-8 file, is skipped.
+"""
+
+from __future__ import annotations
+
+import csv
+import json
+from collections.abc import Collection
+from typing import Any
+
+import numpy as np
+import orjson
+from marshmallow import ValidationError
+from numpy.typing import NDArray
+
+from service.api.problems import invalid
+from service.api.quantities import OUT_OF_RANGE, parse_number
+
+BOM = b"\xef\xbb\xbf"
+TEXT_COLUMNS = frozenset({"tag"})
+"""CSV columns that hold labels rather than numbers."""
+
+
+def json_object(raw: bytes) -> dict[str, Any]:
+    """The JSON object of a body; 400 when it is empty, not JSON, not an object, or repeats a key."""
+    raw = raw.removeprefix(BOM)
+    if not raw.strip():
+        raise invalid("body", 'is empty: send a JSON object, such as {"pressure": [100, 200]}')
+    try:
+        body = orjson.loads(raw)
+    except orjson.JSONDecodeError as error:
+        if "infinity" in error.msg:  # orjson: "number is infinity when parsed as double"
+            raise invalid("body", f"a number is {OUT_OF_RANGE}") from None
+        raise invalid("body", f"is not valid JSON: {error.msg} (at character {error.pos})") from None
+    if not isinstance(body, dict):
+        raise invalid("body", "must be a JSON object")
+    repeated = _repeated_key(raw, body)
+    if repeated:
+        raise invalid(repeated, "given more than once in the body")
+    return body
+
+
+def _repeated_key(raw: bytes, body: dict[str, Any]) -> str | None:
+    """A key that some object of the body repeats (the parser kept only its last value), or None.
+
+    Every key of every object is followed by one colon. When the body holds as many colons as its
+    parsed objects hold keys, no key was lost; otherwise (a repeat, or a colon inside a string) the
+    body is read once more, key by key.
+    """
+    if raw.count(b":") == _key_count(body):
+        return None
+    found: list[str] = []
+
+    def pairs(items: list[tuple[str, Any]]) -> dict[str, Any]:
+        keys = [k for k, _ in items]
+        found.extend(k for i, k in enumerate(keys) if k in keys[:i])
+        return dict(items)
+
+    json.loads(raw, object_pairs_hook=pairs)
+    return found[0] if found else None
+
+
+def _key_count(value: Any) -> int:
+    """Keys in every object of ``value``; an array of numbers is passed over without a look at each."""
+    if isinstance(value, dict):
+        return len(value) + sum(_key_count(v) for v in value.values())
+    if isinstance(value, list) and value and isinstance(value[0], dict | list):
+        return sum(_key_count(v) for v in value)
+    return 0
+
+
+def csv_table(raw: bytes, columns: Collection[str]) -> dict[str, Any]:
+    """A CSV body as ``{name: {"value": array, "unit": code or None}}`` and ``{"tag": [labels]}``.
+
+    The header names the columns, each one of ``columns``, optionally with a unit:
+    ``gauge_pressure [kPa]``. Every row has as many cells as the header. Rows end with LF, CRLF or
+    a bare CR (spreadsheets write all three). Numbers are parsed in one call; only when that fails
+    is the table read cell by cell, to name the first bad cell by row and column.
+    """
+    try:
+        text = raw.removeprefix(BOM).decode("utf-8")
+    except UnicodeDecodeError:
+        raise invalid("body", "a CSV body must be UTF-8 text") from None
+    header, _, rows = text.replace("\r\n", "\n").replace("\r", "\n").strip().partition("\n")
+    if not rows.strip():
+        raise invalid("body", "a CSV body has a header row and at least one row below it")
+    names, units = [], []
+    for cell in next(csv.reader([header])):
+        name, _, unit = cell.partition("[")
+        names.append(name.strip())
+        units.append(unit.rstrip("] ") or None)
+    for name in names:
+        if name not in columns:
+            raise invalid(name, f"not an input of this path; columns may be {', '.join(columns)}")
+    if len(set(names)) != len(names):
+        raise invalid("body", "a CSV header names each column once")
+    labels = [i for i, n in enumerate(names) if n in TEXT_COLUMNS]
+    if labels:
+        cells, text_cells = _cells_with_labels(rows, len(names), labels)
+    else:
+        cells, text_cells = _number_cells(rows, len(names)), {}
+    table = _numbers(cells, rows, names, labels)
+    numeric = [i for i in range(len(names)) if i not in labels]
+    out: dict[str, Any] = {names[i]: text_cells[i] for i in labels}
+    for column, i in enumerate(numeric):
+        out[names[i]] = {"value": table[:, column].copy(), "unit": units[i]}
+    return out
+
+
+def _number_cells(rows: str, width: int) -> str:
+    """The cells of an all-number table as one JSON array text; 400 naming the first row of another width."""
+    cells_per_row = _commas_per_row(rows) + 1
+    misfits = np.flatnonzero(cells_per_row != width)
+    if misfits.size:
+        _wrong_width(int(misfits[0]), width, int(cells_per_row[misfits[0]]))
+    return "[" + rows.replace("\n", ",") + "]"
+
+
+def _cells_with_labels(rows: str, width: int, labels: list[int]) -> tuple[str, dict[int, list[str]]]:
+    """The number cells as one JSON array text, and the label columns' cells, read by the csv module."""
+    table = list(csv.reader(rows.split("\n")))
+    for number, row in enumerate(table):
+        if len(row) != width:
+            _wrong_width(number, width, len(row))
+    texts = {i: [row[i] for row in table] for i in labels}
+    keep = [i for i in range(width) if i not in labels]
+    return "[" + ",".join(",".join(row[i] for i in keep) for row in table) + "]", texts
+
+
+def _wrong_width(row: int, width: int, found: int) -> None:
+    raise invalid(
+        "body",
+        f"every CSV row must have as many cells as the header ({width}); "
+        f"row {row + 2} of the file (the header is row 1) has {found}",
+    )
+
+
+def _numbers(cells: str, rows: str, names: list[str], labels: list[int]) -> NDArray[np.float64]:
+    """The number cells as a table of floats, one column per numeric input."""
+    width = len(names) - len(labels)
+    try:  # orjson reads the cells as one JSON array of numbers: strict and fast
+        values = orjson.loads(cells)
+    except orjson.JSONDecodeError:
+        values = None
+    count = rows.count("\n") + 1
+    if values is None or len(values) != count * width or not set(map(type, values)) <= {int, float}:
+        _name_bad_cell(rows, names, labels)
+    return np.array(values, dtype=float).reshape(count, width)
+
+
+def _name_bad_cell(rows: str, names: list[str], labels: list[int]) -> None:
+    """Refuse the first cell that is not a number, by its row and column."""
+    for number, row in enumerate(csv.reader(rows.split("\n"))):
+        for column, cell in enumerate(row):
+            if column in labels:
+                continue
+            try:
+                parse_number(cell.strip())
+            except ValidationError as error:
+                where = f"row {number + 2}, column {column + 1} ({names[column]})"
+                shown = f"{cell[:20]!r}" if cell.strip() else "empty"
+                raise invalid(names[column], f"{where}: {shown}: {error.messages[0]}") from None
+    raise invalid("body", "every CSV cell below the header must be a number")  # not reached: a cell above fails
+
+
+def _commas_per_row(rows: str) -> NDArray[np.intp]:
+    """How many commas each line of ``rows`` holds, from where its commas and line ends lie.
+
+    >>> _commas_per_row("1,2\\n3\\n,,").tolist()
+    [1, 0, 2]
+    """
+    data = np.frombuffer(rows.encode(), dtype=np.uint8)
+    commas = np.flatnonzero(data == ord(","))
+    line_ends = np.append(np.flatnonzero(data == ord("\n")), data.size)
+    return np.diff(np.searchsorted(commas, line_ends), prepend=0)

@@ -1,0 +1,61 @@
+"""POST bodies read strictly: JSON objects and CSV tables, with refusals that say what and where."""
+
+import pytest
+
+from tests.api.test_errors import problem
+
+BOM = b"\xef\xbb\xbf"
+
+
+def post_json(client, text: bytes | str, path: str = "/v1/boiling-point"):
+    return client.post(path, data=text, content_type="application/json")
+
+
+def test_a_key_given_twice_is_refused_not_answered_with_the_last(client) -> None:
+    body = problem(post_json(client, '{"pressure": 100, "pressure": 200}'), 400)
+    assert body["errors"] == {"pressure": ["given more than once in the body"]}
+    nested = '{"pressure": {"value": 1, "unit": "bar", "unit": "psi"}}'
+    assert problem(post_json(client, nested), 400)["errors"] == {"unit": ["given more than once in the body"]}
+    # A colon inside a string is not a key: the body is read again, and answered.
+    tagged = post_json(client, '{"pressure": 100, "tag": "TI-101: drum"}')
+    assert tagged.status_code == 200 and tagged.get_json()["tag"] == "TI-101: drum"
+
+
+@pytest.mark.parametrize("text", ["", "  \n", BOM.decode()])
+def test_an_empty_body_says_it_is_empty(client, text: str) -> None:
+    assert "is empty" in problem(post_json(client, text), 400)["detail"]
+
+
+@pytest.mark.parametrize("number", ["1e999", "-1e999", "1" + "0" * 400])
+def test_numbers_beyond_double_range_are_out_of_range(client, number: str) -> None:
+    detail = problem(post_json(client, f'{{"pressure": {number}}}'), 400)["detail"]
+    assert "out of range" in detail and "NaN" not in detail
+
+
+def test_json_and_csv_with_a_byte_order_mark_are_read(client) -> None:
+    assert post_json(client, BOM + b'{"pressure": 100}').status_code == 200
+    csv = client.post("/v1/boiling-point", data=BOM + b"pressure\r\n100\r\n50\r\n", content_type="text/csv")
+    assert csv.status_code == 200 and len(csv.get_json()["boiling_point"]["value"]) == 2
+
+
+@pytest.mark.parametrize(
+    ("text", "field", "where"),
+    [
+        ("pressure,depth\n100,0.1\n101,abc\n", "depth", "row 3, column 2 (depth): 'abc'"),
+        ("pressure,depth\n100,\n", "depth", "row 2, column 2 (depth): empty"),
+        ("pressure\n100\n1e999\n", "pressure", "row 3, column 1 (pressure): '1e999': out of range"),
+        ("pressure\n١٠٠\n", "pressure", "row 2, column 1 (pressure)"),
+        ("pressure\n1_000\n", "pressure", "row 2, column 1 (pressure)"),
+    ],
+)
+def test_a_bad_csv_cell_is_named_by_row_and_column(client, text: str, field: str, where: str) -> None:
+    body = problem(client.post("/v1/boiling-point", data=text.encode(), content_type="text/csv"), 400)
+    assert where in body["errors"][field][0], body
+
+
+def test_a_csv_tag_column_is_echoed_beside_each_row(client) -> None:
+    text = 'tag,gauge_pressure [psig]\nPT-101,10\n"PT-102, drum B",20\n'
+    r = client.post("/v1/boiling-point?elevation=1420", data=text.encode(), content_type="text/csv")
+    body = r.get_json()
+    assert body["tag"] == ["PT-101", "PT-102, drum B"]
+    assert body["gauge_pressure"]["value"] == pytest.approx([68.9475729, 137.8951459])
