@@ -50,7 +50,13 @@ class EquationFluid(Schema):
     C = fields.Float(**_NUMBER)
     D = fields.Float(**_NUMBER)
     E = fields.Float(**_NUMBER)
-    log_base = fields.Raw(metadata={"description": 'antoine: 10 or "e".', "enum": [10, "e"]})
+    log_base = fields.Raw(
+        metadata={
+            "description": 'antoine: the base of the logarithm, the number 10 or the string "e".',
+            # Two typed enums rather than one mixed enum, which client generators cannot type.
+            "oneOf": [{"type": "integer", "enum": [10]}, {"type": "string", "enum": ["e"]}],
+        }
+    )
     coefficients = fields.List(fields.Float(**_NUMBER), validate=validate.Length(min=1, max=8))
     exponents = fields.List(
         fields.Float(**_NUMBER, validate=validate.Range(min=0.5, max=50)), validate=validate.Length(min=1, max=8)

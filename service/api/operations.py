@@ -9,6 +9,7 @@ A POST's query string may carry the same options and single values as a GET's.
 
 from __future__ import annotations
 
+import copy
 import math
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass, field
@@ -16,7 +17,7 @@ from typing import Any
 
 import numpy as np
 from flask import Blueprint, Response, current_app, g, request
-from marshmallow import Schema, ValidationError, fields, validate
+from marshmallow import Schema, ValidationError, fields, missing, validate
 from numpy.typing import NDArray
 
 from service.api.formats import chosen_format, finish, render, respond
@@ -182,9 +183,15 @@ class Operation:
             name=f"{self.name}Body",
             fields={**body, **units, **self.options, **self.body_options, "tag": BODY_TAG, "digits": DIGITS},
         )
+        # Documented without defaults: a client that sent them would clash with the body's own values.
         self.post_query_schema = Schema.from_dict(
             name=f"{self.name}PostQuery",
-            fields={**numbers(False), **units, "format": _format_field("json", "csv"), **self.options, **common},
+            fields={
+                **numbers(False),
+                **units,
+                "format": _format_field("json", "csv"),
+                **{name: _without_default(f) for name, f in {**self.options, **common}.items()},
+            },
         )
         # Built once: a schema instance deep-copies its fields, too slow to repeat per request.
         self._loaders = {
@@ -330,6 +337,13 @@ def _same_unit(a: object, b: str, dimension: str) -> bool:
         return isinstance(a, str) and resolve_unit(a, dimension) == resolve_unit(b, dimension)  # type: ignore[arg-type]
     except KeyError:
         return False
+
+
+def _without_default(field: fields.Field) -> fields.Field:
+    """A copy of ``field`` that fills in nothing when left out."""
+    bare = copy.copy(field)
+    bare.load_default = missing
+    return bare
 
 
 def _format_field(*formats: str) -> fields.String:
