@@ -9,7 +9,7 @@ from marshmallow import Schema, fields
 
 from service.api.formats import cacheable
 from service.api.operations import query_args
-from service.api.quantities import UnitField, quantity
+from service.api.quantities import UnitField, difference, quantity
 from service.api.rules import catalog, resolve_catalog_fluid
 from service.fluids.catalog import Fluid
 from service.physics.units import Unit, default_unit
@@ -36,7 +36,7 @@ def _units(loaded: dict[str, Any]) -> tuple[Unit, Unit]:
 
 
 def summary(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
-    nbp = fluid.normal_boiling_point
+    nbp = fluid.boiling_point_at_one_atmosphere
     return {
         "id": fluid.id,
         "name": fluid.name,
@@ -68,6 +68,19 @@ def detail(fluid: Fluid, p_unit: Unit, t_unit: Unit) -> dict[str, Any]:
             "pressure": quantity(fluid.triple_pressure, p_unit),
         },
         "constants_source": fluid.constants_source,
+        "reference_normal_boiling_point": _reference_boiling_point(fluid, t_unit),
+    }
+
+
+def _reference_boiling_point(fluid: Fluid, t_unit: Unit) -> dict[str, Any] | None:
+    """The catalog's reference normal boiling point, its source, and how far the equation's lies from it."""
+    listed, computed = fluid.normal_boiling_point, fluid.boiling_point_at_one_atmosphere
+    if listed is None:
+        return None
+    return {
+        "temperature": quantity(listed, t_unit),
+        "difference": None if computed is None else difference(computed - listed, t_unit),
+        "source": fluid.constants_source,
     }
 
 

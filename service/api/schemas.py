@@ -188,6 +188,17 @@ class ValidRange(Schema):
     pressure_max = fields.Nested(Pressure, required=True)
 
 
+class ReferenceBoilingPoint(Schema):
+    temperature = fields.Nested(Temperature, required=True, metadata={"description": "The published value."})
+    difference = fields.Nested(
+        TemperatureDifference,
+        required=True,
+        allow_none=True,
+        metadata={"description": "The computed normal boiling point minus the published one."},
+    )
+    source = fields.String(required=True, metadata={"description": "Where the published value comes from."})
+
+
 class FluidSummary(Schema):
     id = fields.String(required=True)
     name = fields.String(required=True)
@@ -198,7 +209,10 @@ class FluidSummary(Schema):
         Temperature,
         allow_none=True,
         required=True,
-        metadata={"description": "Boiling point at 101.325 kPa; null where the fluid does not boil at 1 atm."},
+        metadata={
+            "description": "The boiling point at 101.325 kPa as the service computes it from the vapor-pressure "
+            "equation; null where the fluid does not boil at 1 atm."
+        },
     )
     range = fields.Nested(
         ValidRange, required=True, metadata={"description": "Stated range of the vapor-pressure equation."}
@@ -213,6 +227,12 @@ class FluidDetail(FluidSummary):
     triple_point = fields.Nested(FixedPoint, required=True)
     constants_source = fields.String(
         required=True, metadata={"description": "Citation of the critical point, triple point and molar mass."}
+    )
+    reference_normal_boiling_point = fields.Nested(
+        ReferenceBoilingPoint,
+        required=True,
+        allow_none=True,
+        metadata={"description": "A published normal boiling point beside the computed one; null if none is listed."},
     )
 
 

@@ -33,6 +33,8 @@ from service.physics.correlations import (
 from service.physics.units import resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
+ONE_ATMOSPHERE = 101_325.0
+"""The standard atmosphere [Pa] (CGPM 1954), the pressure of a normal boiling point."""
 
 
 class CatalogError(ValueError):
@@ -88,6 +90,8 @@ class Fluid:
     aliases: tuple[str, ...] = ()
     molar_mass: float | None = None
     normal_boiling_point: float | None = None
+    """The catalog's reference value [K] (see ``constants_source``); what the equation gives is
+    :attr:`boiling_point_at_one_atmosphere`."""
     constants_source: str = ""
     lower_limit_note: str | None = None
     """Why the fluid does not boil below its triple point, where that is not sublimation."""
@@ -129,6 +133,16 @@ class Fluid:
         """Saturation pressure at the upper end of the stated range [Pa]."""
         return float(self.equation.pressure(self.stated_range[1]))
 
+    @cached_property
+    def boiling_point_at_one_atmosphere(self) -> float | None:
+        """The boiling point [K] that this fluid's equation gives at 101 325 Pa, the normal boiling point as the
+        service computes it; None where the fluid does not boil at 1 atm (below its triple-point pressure or
+        above its critical pressure) or the equation does not reach it."""
+        low, high = self.pressure_limits
+        if not (self.triple_pressure < ONE_ATMOSPHERE < self.critical_pressure and low <= ONE_ATMOSPHERE <= high):
+            return None
+        return float(self.saturation_temperature(ONE_ATMOSPHERE))
+
     def saturation_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Vapor pressure [Pa] at ``temperature`` [K]."""
         return self.equation.pressure(temperature)
@@ -149,7 +163,8 @@ class Fluid:
 
     def prepare(self) -> None:
         """Compute the cached pressure limits and inverse table now instead of on first use."""
-        for name in ("p_min", "p_max", "pressure_limits", *(("_inverse_table",) if self.tabulated else ())):
+        names = ("p_min", "p_max", "pressure_limits", *(("_inverse_table",) if self.tabulated else ()))
+        for name in (*names, "boiling_point_at_one_atmosphere"):
             getattr(self, name)
 
     @cached_property

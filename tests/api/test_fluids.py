@@ -43,3 +43,25 @@ def test_unknown_fluid_on_a_computing_path(client) -> None:
 
 def test_bad_unit_on_the_catalog(client) -> None:
     assert client.get("/v1/fluids?temperature_unit=kelvins").status_code == 400
+
+
+def test_one_normal_boiling_point_per_fluid_the_one_the_service_computes(client) -> None:
+    # Ethanol's catalog lists 78.42 degC from its reference equation of state (constants_source); the
+    # service's vapor-pressure equation gives 78.265 degC at 101.325 kPa. The catalog shows the second,
+    # with the first beside it labelled by its source and the difference.
+    listed = client.get("/v1/fluids").get_json()["fluids"]
+    for fluid in listed:
+        nbp = fluid["normal_boiling_point"]
+        answer = client.get(f"/v1/boiling-point?pressure=101.325&fluid={fluid['id']}")
+        if nbp is None:
+            assert answer.status_code == 422, fluid["id"]
+            continue
+        assert answer.get_json()["boiling_point"]["value"] == nbp["value"], fluid["id"]
+    ethanol = client.get("/v1/fluids/ethanol").get_json()
+    reference = ethanol["reference_normal_boiling_point"]
+    assert reference["temperature"]["value"] == pytest.approx(78.42)
+    assert reference["difference"] == {
+        "value": pytest.approx(ethanol["normal_boiling_point"]["value"] - 78.42),
+        "unit": "K",
+    }
+    assert "Schroeder" in reference["source"]
