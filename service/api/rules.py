@@ -188,14 +188,21 @@ def _unit_hint(values: NDArray, unit: Unit, low: float, high: float) -> str:
     if not outside.size:
         return ""
     number = float(unit.from_si(float(np.ravel(values)[outside[0]])))
-    fits = [u for u in site.units_read_as_air_pressure(number) if u.code != unit.code]
-    if not fits:
+    groups: list[list[Unit]] = []  # units alike (hPa and mbar, Torr and mmHg) share a reading
+    for fit in site.units_read_as_air_pressure(number):
+        if fit.code == unit.code:
+            continue
+        alike = next((g for g in groups if math.isclose(g[0].scale, fit.scale, rel_tol=1e-3)), None)
+        if alike is None:
+            groups.append([fit])
+        else:
+            alike.append(fit)
+    readings = [
+        f"{format_value(number * group[0].scale, unit)} in {' or '.join(u.code for u in group)}" for group in groups[:2]
+    ]
+    if not readings:
         return ""
-    fits = [u for u in fits if math.isclose(u.scale, fits[0].scale, rel_tol=1e-3)]  # hPa and mbar, Torr and mmHg
-    return (
-        f"; a barometer reading of {number:g} {' or '.join(u.code for u in fits)} would be "
-        f"{format_value(number * fits[0].scale, unit)}: check the unit it was sent in"
-    )
+    return f"; as a barometer reading, {number:g} would be {', or '.join(readings)}: check the unit it was sent in"
 
 
 def sea_level_pressure(inputs: Inputs) -> NDArray[np.float64] | float:

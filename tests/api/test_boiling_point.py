@@ -105,7 +105,7 @@ def test_fluid_by_alias_and_cas(client) -> None:
 
 @pytest.mark.parametrize(
     ("reading", "meant"),
-    [("1013", "1013 hPa or mbar would be 101.3 kPa"), ("29.92", "29.92 inHg would be 101.321 kPa")],
+    [("1013", "1013 would be 101.3 kPa in hPa or mbar"), ("29.92", "29.92 would be 101.321 kPa in inHg")],
 )
 def test_a_barometer_reading_in_the_wrong_unit_is_refused_naming_the_band(client, reading: str, meant: str) -> None:
     # Sent without pressure_unit, 1013 (hPa) would be 1013 kPa and boil near 180 degC; 29.92 (inHg) near 69 degC.
