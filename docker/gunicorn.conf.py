@@ -13,7 +13,12 @@ import tempfile
 
 bind = f"{os.environ.get('HOST', '127.0.0.1')}:{os.environ.get('PORT', '8000')}"
 workers = int(os.environ.get("WEB_CONCURRENCY", min(2 * multiprocessing.cpu_count() + 1, 9)))
-worker_class = "sync"
+# gevent: a client that sends its body slowly, or never finishes it, holds a greenlet rather than a worker;
+# the service gives each body BOILING_BODY_TIMEOUT seconds (then 408), and waits for the next request on a
+# kept-alive connection for `keepalive` seconds. The computing itself is numpy and holds the worker while it
+# runs, as a sync worker would. GUNICORN_WORKER_CLASS=sync gives the old model (bench/throughput.py compares).
+worker_class = os.environ.get("GUNICORN_WORKER_CLASS", "gevent")
+worker_connections = int(os.environ.get("GUNICORN_WORKER_CONNECTIONS", "1000"))
 # A request is a few milliseconds of numpy; anything near this limit is a fault, not work.
 timeout = int(os.environ.get("GUNICORN_TIMEOUT", "30"))
 # On SIGTERM, workers finish the requests in flight for up to this long, then exit.
@@ -36,6 +41,9 @@ logconfig_dict = {  # gunicorn's own handler names, pointed at JSON lines on std
     "root": {"level": loglevel.upper(), "handlers": ["console"]},
     "loggers": {"gunicorn.error": {"handlers": ["error_console"], "level": loglevel.upper(), "propagate": False}},
 }
+# No control socket: gunicorn would keep one at a fixed path in the home directory, shared by every instance
+# of the user, so that stopping one instance removed another's. Nothing here uses gunicornc.
+control_socket_disable = True
 # Header limits. The service itself refuses query strings over BOILING_MAX_QUERY_BYTES with a 414
 # problem; gunicorn's own limit sits above it.
 limit_request_line = 8190

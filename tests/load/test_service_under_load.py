@@ -60,7 +60,9 @@ class Server:
 
 
 @contextlib.contextmanager
-def gunicorn() -> Iterator[Server]:
+def gunicorn(**settings: str) -> Iterator[Server]:
+    """The service under gunicorn with docker/gunicorn.conf.py, as `make serve` runs it; ``settings`` add to its
+    environment."""
     with socket.socket() as s:
         s.bind(("127.0.0.1", 0))
         port = s.getsockname()[1]
@@ -71,6 +73,7 @@ def gunicorn() -> Iterator[Server]:
         "WEB_CONCURRENCY": str(WORKERS),
         "LOG_LEVEL": "warning",
         "PROMETHEUS_MULTIPROC_DIR": f"/tmp/boiling-load-{port}",
+        **settings,
     }
     gunicorn_bin = str(Path(sys.executable).with_name("gunicorn"))
     process = subprocess.Popen(
@@ -239,3 +242,70 @@ def test_sigterm_drains_requests_in_flight() -> None:
     report("drain", f"SIGTERM with {WORKERS} 100,000-point requests in flight: answers {results}; master exit {code}.")
     assert results == [200] * WORKERS
     assert code == 0
+
+
+def test_slow_clients_hold_no_worker_and_get_a_408() -> None:
+    # Twelve clients, four times the workers: half send their headers and part of the body and stop, half
+    # trickle the body a byte at a time. /healthz keeps answering fast, an ordinary POST is answered, and
+    # each slow client gets a problem+json 408 once BOILING_BODY_TIMEOUT has passed.
+    timeout = 2.0
+    with gunicorn(BOILING_BODY_TIMEOUT=str(int(timeout))) as server:
+        stop = threading.Event()
+        slow = [socket.create_connection(("127.0.0.1", server.port)) for _ in range(4 * WORKERS)]
+        head = (
+            b"POST /v1/boiling-point HTTP/1.1\r\nHost: t\r\n"
+            b"Content-Type: application/json\r\nContent-Length: 64\r\n\r\n"
+        )
+        for client in slow:
+            client.sendall(head + b'{"pres')
+
+        def trickle(client: socket.socket) -> None:
+            while not stop.wait(0.3):
+                with contextlib.suppress(OSError):
+                    client.sendall(b" ")
+
+        tricklers = [threading.Thread(target=trickle, args=(c,), daemon=True) for c in slow[::2]]
+        for t in tricklers:
+            t.start()
+        started = time.monotonic()
+        latencies = []
+        while time.monotonic() - started < timeout * 0.8:
+            t0 = time.perf_counter()
+            assert get(server.port, "/healthz")[0] == 200
+            latencies.append(time.perf_counter() - t0)
+            time.sleep(0.05)
+        conn = http.client.HTTPConnection("127.0.0.1", server.port, timeout=10)
+        conn.request("POST", "/v1/boiling-point", b'{"pressure": [100, 50]}', {"Content-Type": "application/json"})
+        ordinary = conn.getresponse().status
+        conn.close()
+        answers = []
+        for client in slow:
+            client.settimeout(timeout + 5)
+            answers.append(client.recv(65536).split(b"\r\n\r\n", 1)[0])
+        waited = time.monotonic() - started
+        stop.set()
+        for client in slow:
+            client.close()
+    report(
+        "slow-clients",
+        f"{len(slow)} slow clients against {WORKERS} gevent workers: /healthz answered {len(latencies)} times, "
+        f"slowest {max(latencies) * 1e3:.1f} ms; every slow client had its 408 after {waited:.1f} s "
+        f"(BOILING_BODY_TIMEOUT={timeout:g} s).",
+    )
+    assert max(latencies) < 1.0, latencies
+    assert ordinary == 200
+    for answer in answers:
+        assert answer.startswith(b"HTTP/1.1 408"), answer
+        assert b"Content-Type: application/problem+json" in answer, answer
+    assert waited < timeout + 3
+
+
+def test_instances_keep_no_control_socket_to_share(tmp_path: Path) -> None:
+    # gunicorn's control socket defaults to one path in the home directory: a second instance of the same
+    # user took it over, and stopping either removed it. The configuration turns it off.
+    home = {"HOME": str(tmp_path), "XDG_RUNTIME_DIR": ""}
+    with gunicorn(**home) as first, gunicorn(**home) as second:
+        first.process.send_signal(signal.SIGTERM)
+        first.process.wait(timeout=30)
+        assert get(second.port, "/healthz")[0] == 200
+        assert not list(tmp_path.rglob("*.ctl")), list(tmp_path.rglob("*"))
