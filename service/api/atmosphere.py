@@ -58,7 +58,7 @@ Operation(
     ),
     inputs={
         "elevation": Input("length", "Geometric elevation above mean sea level.", required=True),
-        "sea_level_pressure": Input("pressure", "A weather station's sea-level pressure (QNH)."),
+        "sea_level_pressure": Input("pressure", "A weather station's sea-level pressure (QNH).", reference="absolute"),
     },
     options={},
     dimensions=("pressure", "temperature", "length"),

@@ -7,7 +7,7 @@ from typing import Any
 from marshmallow import Schema, ValidationError, fields, validate, validates_schema
 
 from service.api.problems import invalid
-from service.api.quantities import UnitField
+from service.api.quantities import Number, UnitField, printable
 from service.api.rules import resolve_catalog_fluid
 from service.fluids.catalog import Fluid
 from service.fluids.custom import fluid_from_boiling_point, fluid_from_equation
@@ -15,7 +15,7 @@ from service.physics.units import Unit
 
 _NAME = fields.String(
     load_default="caller-defined fluid",
-    validate=validate.Length(min=1, max=100),
+    validate=[validate.Length(min=1, max=100), printable],
     metadata={"description": "A label for the answers."},
 )
 _FORM_KEYS = {
@@ -23,7 +23,6 @@ _FORM_KEYS = {
     "wagner": {"coefficients", "exponents"},
     "dippr101": {"A", "B", "C", "D", "E"},
 }
-_NUMBER = {"allow_nan": False}
 
 
 def _above_zero(value: float) -> None:
@@ -45,11 +44,11 @@ class EquationFluid(Schema):
             "critical_pressure; dippr101: ln(p/Pa) = A + B/T + C ln T + D T**E with T in K."
         },
     )
-    A = fields.Float(**_NUMBER)
-    B = fields.Float(**_NUMBER)
-    C = fields.Float(**_NUMBER)
-    D = fields.Float(**_NUMBER)
-    E = fields.Float(**_NUMBER)
+    A = Number()
+    B = Number()
+    C = Number()
+    D = Number()
+    E = Number()
     log_base = fields.Raw(
         metadata={
             "description": 'antoine: the base of the logarithm, the number 10 or the string "e".',
@@ -57,14 +56,12 @@ class EquationFluid(Schema):
             "oneOf": [{"type": "integer", "enum": [10]}, {"type": "string", "enum": ["e"]}],
         }
     )
-    coefficients = fields.List(fields.Float(**_NUMBER), validate=validate.Length(min=1, max=8))
-    exponents = fields.List(
-        fields.Float(**_NUMBER, validate=validate.Range(min=0.5, max=50)), validate=validate.Length(min=1, max=8)
-    )
-    critical_temperature = fields.Float(**_NUMBER, metadata={"description": "In `temperature_unit`."})
-    critical_pressure = fields.Float(**_NUMBER, metadata={"description": "In `pressure_unit`."})
-    t_min = fields.Float(required=True, **_NUMBER, metadata={"description": "Lower end of the stated range."})
-    t_max = fields.Float(required=True, **_NUMBER, metadata={"description": "Upper end of the stated range."})
+    coefficients = fields.List(Number(), validate=validate.Length(min=1, max=8))
+    exponents = fields.List(Number(validate=validate.Range(min=0.5, max=50)), validate=validate.Length(min=1, max=8))
+    critical_temperature = Number(metadata={"description": "In `temperature_unit`."})
+    critical_pressure = Number(metadata={"description": "In `pressure_unit`."})
+    t_min = Number(required=True, metadata={"description": "Lower end of the stated range."})
+    t_max = Number(required=True, metadata={"description": "Upper end of the stated range."})
     temperature_unit = UnitField(
         "temperature",
         metadata={
@@ -102,17 +99,15 @@ class PointFluid(Schema):
     """One known boiling point; Clausius-Clapeyron carries it to other pressures."""
 
     name = _NAME
-    boiling_point = fields.Float(required=True, **_NUMBER, metadata={"description": "In `temperature_unit`."})
-    pressure = fields.Float(
-        **_NUMBER,
+    boiling_point = Number(required=True, metadata={"description": "In `temperature_unit`."})
+    pressure = Number(
         validate=_above_zero,
         metadata={
             "description": "Pressure of the known boiling point, in `pressure_unit` (default 1 atm).",
             "exclusiveMinimum": 0,
         },
     )
-    enthalpy_of_vaporization = fields.Float(
-        **_NUMBER,
+    enthalpy_of_vaporization = Number(
         validate=[_above_zero, validate.Range(max=1000)],
         metadata={
             "description": "In kJ/mol. Without it, Trouton's rule estimates it and the answer says so.",

@@ -39,8 +39,8 @@ def finish(
     answer: dict[str, Any], tag: str | list[str] | None, digits: int | None, shape: tuple[int, ...]
 ) -> dict[str, Any]:
     """The answer with the request's ``tag`` first, every number rounded to ``digits`` significant digits."""
-    if isinstance(tag, list):  # one tag per point, spread like any array of the request
-        tag = np.broadcast_to(np.array(tag, dtype=object), shape).tolist() if shape else tag[0]
+    if isinstance(tag, list) and not shape:  # one label for one point
+        tag = tag[0]
     if tag is not None:
         answer = {"tag": tag, **answer}
     if digits is None:
@@ -189,6 +189,7 @@ def as_csv(body: dict[str, Any], shape: tuple[int, ...]) -> str:
     warnings = [w if isinstance(w, Caution) else Caution(w, True) for w in body.get("warnings", ())]
     notes = [f"# {name}: {body[name]}" for name in _CSV_NOTES if body.get(name)]
     notes += [f"# warning {i}: {w.text}" for i, w in enumerate(warnings, start=1)]
+    notes = [" ".join(note.splitlines()) for note in notes]  # one line each, whatever a name holds
     numbers, number_headers = [], []
     labels: dict[str, list[str]] = {}
     for name, value in body.items():
@@ -213,8 +214,9 @@ def _number_rows(columns: list[np.ndarray]) -> list[str]:
 
 
 def _csv_cell(text: str) -> str:
-    """A label as a CSV cell: quoted when it holds a comma, a quote or a line end (RFC 4180)."""
-    if any(c in text for c in ',"\r\n'):
+    """A label as a CSV cell: quoted when it holds a comma, a quote or a line end (RFC 4180), or starts with
+    ``#``, so that a reader which skips the comment lines keeps its row."""
+    if text.startswith("#") or any(c in text for c in ',"\r\n'):
         return '"' + text.replace('"', '""') + '"'
     return text
 

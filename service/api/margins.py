@@ -6,14 +6,13 @@ from typing import Any
 
 import numpy as np
 from flask import Blueprint
-from marshmallow import fields, validate
+from marshmallow import validate
 
 from service.api import schemas
 from service.api.fluid_field import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.operations import Input, Inputs, Operation
-from service.api.quantities import DENSITY, any_true, difference, quantity
+from service.api.quantities import DENSITY, Number, any_true, difference, quantity
 from service.api.rules import (
-    GRAVITY,
     INSTRUMENT_INPUTS,
     PRESSURE_INPUTS,
     boiling_pressure_at_depth,
@@ -21,12 +20,14 @@ from service.api.rules import (
     check_liquid_temperature,
     local_pressure,
     note_near_critical,
+    pressure_fields,
     provenance,
     refuse_outside,
     require_liquid_density,
     temperature_uncertainty,
 )
 from service.fluids.cautions import Caution, Warnings
+from service.physics.units import STANDARD_GRAVITY
 
 blueprint = Blueprint("margins", __name__)
 
@@ -36,8 +37,7 @@ COVERAGE = 2.0
 """With a pressure uncertainty u, the saturated band widens by k u, k = 2: about 95 % coverage for a normal
 distribution (JCGM 100:2008, the GUM, section 6.3)."""
 
-TOLERANCE = fields.Float(
-    allow_nan=False,
+TOLERANCE = Number(
     validate=validate.Range(min=0.0),
     metadata={
         "description": "Half-width of the `saturated` band, as a temperature difference in K (for K and degC "
@@ -65,13 +65,9 @@ def saturation_margin(inputs: Inputs) -> dict[str, Any]:
     band = tolerance if uncertainty is None else tolerance + COVERAGE * uncertainty
     margin = saturation - inputs.values["temperature"]
     state = np.where(margin > band, "subcooled", np.where(margin < -band, "superheated", "saturated"))
-    answer: dict[str, Any] = {"fluid": fluid.id}
-    if inputs.get("gauge_pressure") is not None:
-        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
-    answer["pressure"] = local.quantity(inputs, p_unit) if density is None else quantity(pressure, p_unit)
-    if density is not None:
-        answer["surface_pressure"] = local.quantity(inputs, p_unit)
-    answer |= {
+    answer = {
+        "fluid": fluid.id,
+        **pressure_fields(inputs, local, p_unit, None if density is None else pressure),
         "temperature": inputs.echo("temperature", t_unit),
         "saturation_temperature": quantity(saturation, t_unit),
     }
@@ -112,7 +108,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
     vapor = fluid.saturation_pressure(temperature)
     rho = density.density(temperature)
     static = inputs.values["static_head"]
-    npsh = (local.value - vapor) / (rho * GRAVITY) + static - friction
+    npsh = (local.value - vapor) / (rho * STANDARD_GRAVITY) + static - friction
     boiling = local.value < vapor
     if any_true(boiling):
         warnings.append(
@@ -133,12 +129,9 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
             )
         )
     warnings.append(NPSH_CAUTION)
-    answer: dict[str, Any] = {"fluid": fluid.id}
-    if inputs.get("gauge_pressure") is not None:
-        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
     return {
-        **answer,
-        "pressure": local.quantity(inputs, p_unit),
+        "fluid": fluid.id,
+        **pressure_fields(inputs, local, p_unit),
         "temperature": inputs.echo("temperature", t_unit),
         "vapor_pressure": quantity(vapor, p_unit),
         "liquid_density": quantity(rho, DENSITY),

@@ -22,7 +22,7 @@ from service.api.fluids import FluidQuery, FluidSearchQuery
 from service.api.formats import as_csv, as_text, shown
 from service.api.operations import OPERATIONS, Operation
 from service.api.problems import PROBLEM_TYPE, TITLES, problem_type
-from service.api.quantities import QuantityField, unit_schema
+from service.api.quantities import UNIT_SCHEMAS, QuantityField, UnitField, unit_schema, unit_spellings_schema
 from service.config import VERSION
 
 DESCRIPTION = """\
@@ -66,6 +66,11 @@ _PlainDumper.add_representer(str, _text)
 def _paragraphs(text: str) -> str:
     """Hard-wrapped source text as one line per paragraph, for the document."""
     return "\n\n".join(" ".join(p.split()) for p in text.split("\n\n"))
+
+
+def _unit_property(self: Any, field: Any, **kwargs: Any) -> dict[str, Any]:
+    """JSON Schema of a :class:`UnitField`: the document's list of the spellings it takes."""
+    return unit_schema(field.dimension, field.reference) if isinstance(field, UnitField) else {}
 
 
 def _quantity_property(self: Any, field: Any, **kwargs: Any) -> dict[str, Any]:
@@ -227,7 +232,10 @@ def build_document() -> dict[str, Any]:
         security=[{}, {"apiKey": []}],
     )
     spec.plugins[0].converter.add_attribute_function(_quantity_property)  # type: ignore[attr-defined]
+    spec.plugins[0].converter.add_attribute_function(_unit_property)  # type: ignore[attr-defined]
     spec.components.schema("Problem", schema=schemas.Problem)
+    for name in UNIT_SCHEMAS:
+        spec.components.schema(name, unit_spellings_schema(name))
     spec.components.schema("EquationFluid", schema=EquationFluid)
     spec.components.schema("PointFluid", schema=PointFluid)
     for operation in OPERATIONS:

@@ -32,6 +32,7 @@ from service.api.quantities import (
     WholeNumber,
     all_finite,
     parse_number,
+    printable,
     quantity,
 )
 from service.api.request_body import csv_table, json_object
@@ -86,7 +87,7 @@ class Inputs:
         return {"value": np.ascontiguousarray(value) if self.shape else float(value), "unit": unit.code}
 
 
-TAG_TEXT = validate.Length(min=1, max=200)
+TAG_TEXT = [validate.Length(min=1, max=200), printable]
 TAG = fields.String(
     validate=TAG_TEXT,
     metadata={
@@ -101,10 +102,11 @@ class TagField(fields.Field):
 
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> str | list[str]:
         tags = value if isinstance(value, list) else [value]
-        if not all(isinstance(t, str) for t in tags):
-            raise ValidationError("must be a string or an array of strings")
-        if any(not 1 <= len(t) <= 200 for t in tags):
-            raise ValidationError("each tag has 1 to 200 characters")
+        if not tags or not all(isinstance(t, str) for t in tags):
+            raise ValidationError("must be a string or a non-empty array of strings")
+        for text in tags:
+            for check in TAG_TEXT:
+                check(text)
         return value
 
 
@@ -114,7 +116,7 @@ BODY_TAG = TagField(
         "matches answers to its instruments by name, not by order.",
         "oneOf": [
             {"type": "string", "minLength": 1, "maxLength": 200},
-            {"type": "array", "items": {"type": "string", "minLength": 1, "maxLength": 200}},
+            {"type": "array", "minItems": 1, "items": {"type": "string", "minLength": 1, "maxLength": 200}},
         ],
     }
 )
@@ -215,10 +217,10 @@ class Operation:
                 continue
             sent[name] = given = raw if isinstance(raw, Quantity) else Quantity(raw)
             unit = given.unit or units[spec.dimension]
-            if unit.reference is not None and unit.reference != spec.reference:
+            if unit.reference == "absolute" and spec.reference == "gauge":  # pressure_unit=psia, say
                 raise invalid(
                     name,
-                    f"pressure_unit marks {unit.reference} pressures, and {name} is a gauge reading: "
+                    f"pressure_unit marks absolute pressures, and {name} is a gauge reading: "
                     f"use pressure_unit={unit.code}, or give {name} its own unit",
                 )
             values[name] = si = _in_si(given.value, unit)
@@ -228,8 +230,12 @@ class Operation:
                     f"{name}: a value is too large to be a {spec.dimension} in SI units.",
                     {name: ["beyond the range of double-precision numbers once converted to SI"]},
                 )
+        shape = _broadcast_shape({name: np.shape(v) for name, v in values.items()})
         tag = loaded.get("tag")
-        shape = _broadcast_shape({**values, **({"tag": np.empty(len(tag))} if isinstance(tag, list) else {})})
+        if isinstance(tag, list) and (len(tag),) != (shape or (1,)):
+            raise invalid(
+                "tag", f"has {len(tag)} labels for {math.prod(shape)} points: give one per point, or one string"
+            )
         limit = current_app.config["MAX_POINTS"]
         size = math.prod(shape)
         if size > limit:
@@ -259,7 +265,7 @@ class Operation:
 
     def _answer(self, inputs: Inputs) -> dict[str, Any]:
         """The answer with its tag and rounding; refused with 422 if a number is not finite (JSON would show null)."""
-        answer = self.compute(inputs)
+        answer = finish(self.compute(inputs), inputs.options.get("tag"), inputs.options.get("digits"), inputs.shape)
         for name, value in answer.items():
             if isinstance(value, dict) and "value" in value and not all_finite(value["value"]):
                 raise Problem(
@@ -267,7 +273,7 @@ class Operation:
                     f"{name}: the equations give no finite answer for these inputs.",
                     {name: ["not a finite number"]},
                 )
-        return finish(answer, inputs.options.get("tag"), inputs.options.get("digits"), inputs.shape)
+        return answer
 
     def _with_query(self, body: dict[str, Any], args: dict[str, str]) -> dict[str, Any]:
         """The body with the query string's options and single values; a name given in both is refused,
@@ -305,8 +311,7 @@ def _in_si(value: Numbers, unit: Unit) -> NDArray[np.float64] | np.float64:
     return np.float64(unit.to_si(float(value)))
 
 
-def _broadcast_shape(values: Mapping[str, NDArray]) -> tuple[int, ...]:
-    shapes = {name: np.shape(v) for name, v in values.items()}
+def _broadcast_shape(shapes: Mapping[str, tuple[int, ...]]) -> tuple[int, ...]:
     if not any(shapes.values()):
         return ()
     try:

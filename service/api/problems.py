@@ -9,6 +9,8 @@ from flask import Flask, Response, current_app, g, request
 from marshmallow import ValidationError
 from werkzeug.exceptions import HTTPException
 
+from service.api.formats import MEDIA_TYPES, chosen_format
+
 PROBLEM_TYPE = "application/problem+json"
 _LOG = logging.getLogger(__name__)
 
@@ -91,20 +93,11 @@ def problem_response(problem: Problem) -> Response:
     return response
 
 
-_TEXT_FORMATS = {"text", "csv"}
-_TEXT_TYPES = ("text/plain", "text/csv")
-
-
 def wants_text() -> bool:
     """Whether the request asked for a text answer (``format=text`` or ``csv``, or an Accept header that
     prefers text/plain or text/csv to JSON): its errors come as text too."""
     asked = request.args.get("format")
-    if asked:
-        return asked in _TEXT_FORMATS
-    if request.environ.get("HTTP_ACCEPT", "*/*") == "*/*":
-        return False
-    best = request.accept_mimetypes.best_match(["application/json", PROBLEM_TYPE, *_TEXT_TYPES])
-    return best in _TEXT_TYPES
+    return chosen_format(asked if asked in MEDIA_TYPES else None, ("text", "csv")) != "json"
 
 
 def _flatten(messages: object, prefix: str = "") -> dict[str, list[str]]:

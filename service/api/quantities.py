@@ -80,6 +80,12 @@ class Number(fields.Float):
         return super()._deserialize(finite_numbers(value), attr, data, **kwargs)
 
 
+def printable(text: str) -> None:
+    """Refuse control characters (line ends, tabs): labels are echoed into text and CSV answers line by line."""
+    if any(not c.isprintable() for c in text):
+        raise ValidationError("must not hold control characters such as line ends")
+
+
 class WholeNumber(fields.Integer):
     """A whole number: a JSON integer, or ASCII digits in a query string."""
 
@@ -112,9 +118,28 @@ def largest(values: Numbers, empty: float) -> float:
     return float(values.max(initial=empty)) if isinstance(values, np.ndarray) else float(values)
 
 
+UNIT_SCHEMAS: dict[str, tuple[Dimension, Reference | None]] = {
+    "PressureUnitSpelling": ("pressure", None),
+    "GaugePressureUnitSpelling": ("pressure", "gauge"),
+    "TemperatureUnitSpelling": ("temperature", None),
+    "LengthUnitSpelling": ("length", None),
+}
+"""The named lists of unit spellings in the OpenAPI document (an absolute pressure takes the same as a
+request's pressure_unit)."""
+
+
 def unit_schema(dimension: Dimension, reference: Reference | None = None) -> dict[str, Any]:
-    """JSON Schema of a unit spelling for a quantity of ``dimension`` (and kind of pressure)."""
-    return {"type": "string", "enum": spellings(dimension, reference)}
+    """A reference to the document's list of the unit spellings a quantity of ``dimension`` (and kind of
+    pressure) takes."""
+    name = next(
+        n for n, (d, r) in UNIT_SCHEMAS.items() if d == dimension and r == (reference if reference == "gauge" else None)
+    )
+    return {"$ref": f"#/components/schemas/{name}"}
+
+
+def unit_spellings_schema(name: str) -> dict[str, Any]:
+    """The JSON Schema behind :func:`unit_schema`'s reference ``name``."""
+    return {"type": "string", "enum": spellings(*UNIT_SCHEMAS[name])}
 
 
 class UnitField(fields.String):
@@ -128,11 +153,7 @@ class UnitField(fields.String):
         self.dimension, self.reference = dimension, reference
         metadata = kwargs.pop("metadata", {})
         accepted = f"One of {', '.join(codes(dimension))} or a listed alias; letter case counts where it has meaning."
-        metadata = {
-            **metadata,
-            **unit_schema(dimension, reference),
-            "description": f"{metadata.get('description', '')} {accepted}".strip(),
-        }
+        metadata = {**metadata, "description": f"{metadata.get('description', '')} {accepted}".strip()}
         super().__init__(metadata=metadata, **kwargs)
 
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> Unit:
@@ -200,28 +221,40 @@ def _plain(value: Numbers) -> Numbers:
 
 _EXACT_POWERS = 22
 """10**k is exact in double precision up to k = 22: the fast rounding below divides by such powers only."""
+_FAST_DIGITS = 14
+"""Up to this many digits x * 10**k stays well inside the 53-bit mantissa, so its rounding error is tiny."""
 
 
 def significant(value: Numbers, digits: int) -> Numbers:
     """``value`` rounded to ``digits`` significant digits: the double nearest the rounded decimal, so that
-    JSON and CSV show it in its short form (``95.2498``).
+    JSON and CSV show it in its short form (``95.2498``). A number whose rounding would overflow stays as it is.
 
-    Vectorised: x is scaled by an exact power of ten, rounded to a whole number and scaled back, which
-    gives the correctly rounded decimal; the rare numbers that need a power beyond 10**22 (below about
-    1e-8 at 15 digits) are rounded through their decimal text.
+    Vectorised: x is scaled by an exact power of ten, rounded to a whole number and scaled back. The
+    scaling itself rounds, so where the scaled number lies within a few units in its last place of a half
+    (a tie the scaling may have moved), and for more than 14 digits or powers beyond 10**22, the number is
+    rounded through its decimal text instead, which is exact.
 
     >>> significant(95.24976013, 6), significant(-0.000123456, 2), significant(123456.0, 2)
     (95.2498, -0.00012, 120000.0)
+    >>> significant(876.5370964165805, 15), significant(0.125, 2)
+    (876.537096416581, 0.12)
     """
     array = np.asarray(value, dtype=float)
-    with np.errstate(divide="ignore"):
+    with np.errstate(divide="ignore", over="ignore", invalid="ignore"):
         magnitude = np.floor(np.log10(np.abs(array)))
-    exponent = np.where(np.isfinite(magnitude), digits - 1 - magnitude, 0).astype(np.int64)
-    scale = np.power(10.0, np.minimum(np.abs(exponent), _EXACT_POWERS))
-    out = np.where(exponent >= 0, np.round(array * scale) / scale, np.round(array / scale) * scale)
-    far = np.abs(exponent) > _EXACT_POWERS
-    if far.any():
-        out[far] = [float(f"{v:.{digits}g}") for v in array[far].tolist()]
+        exponent = np.where(np.isfinite(magnitude), digits - 1 - magnitude, 0).astype(np.int64)
+        scale = np.power(10.0, np.minimum(np.abs(exponent), _EXACT_POWERS))
+        scaled = np.where(exponent >= 0, array * scale, array / scale)
+        whole = np.round(scaled)
+        out = np.where(exponent >= 0, whole / scale, whole * scale)
+        near_tie = np.abs(np.abs(scaled - np.trunc(scaled)) - 0.5) <= 4 * np.spacing(np.abs(scaled))
+    doubtful = near_tie | (np.abs(exponent) > _EXACT_POWERS) | (digits > _FAST_DIGITS)
+    if doubtful.any():
+        out = np.array(out, dtype=float, copy=True, ndmin=1)
+        flat = np.ravel(doubtful)
+        out.reshape(-1)[flat] = [float(f"{v:.{digits}g}") for v in np.ravel(array)[flat].tolist()]
+        out = out.reshape(array.shape)
+    out = np.where(np.isfinite(out), out, array)
     return out if out.ndim else float(out)
 
 

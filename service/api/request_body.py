@@ -8,6 +8,7 @@ write at the start of a UTF-8 file, is skipped.
 from __future__ import annotations
 
 import csv
+import io
 import json
 from collections.abc import Collection
 from typing import Any
@@ -99,11 +100,11 @@ def csv_table(raw: bytes, columns: Collection[str]) -> dict[str, Any]:
     if len(set(names)) != len(names):
         raise invalid("body", "a CSV header names each column once")
     labels = [i for i, n in enumerate(names) if n in TEXT_COLUMNS]
-    if labels:
-        cells, text_cells = _cells_with_labels(rows, len(names), labels)
+    if labels or '"' in rows:  # labels, or quoted cells: read by the csv module
+        count, cells, text_cells = _quoted_cells(rows, len(names), labels)
     else:
-        cells, text_cells = _number_cells(rows, len(names)), {}
-    table = _numbers(cells, rows, names, labels)
+        count, cells, text_cells = rows.count("\n") + 1, _number_cells(rows, len(names)), {}
+    table = _numbers(cells, count, rows, names, labels)
     numeric = [i for i in range(len(names)) if i not in labels]
     out: dict[str, Any] = {names[i]: text_cells[i] for i in labels}
     for column, i in enumerate(numeric):
@@ -120,15 +121,16 @@ def _number_cells(rows: str, width: int) -> str:
     return "[" + rows.replace("\n", ",") + "]"
 
 
-def _cells_with_labels(rows: str, width: int, labels: list[int]) -> tuple[str, dict[int, list[str]]]:
-    """The number cells as one JSON array text, and the label columns' cells, read by the csv module."""
-    table = list(csv.reader(rows.split("\n")))
+def _quoted_cells(rows: str, width: int, labels: list[int]) -> tuple[int, str, dict[int, list[str]]]:
+    """The row count, the number cells as one JSON array text, and the label columns' cells, read by the csv
+    module (quoted cells, line ends inside quotes)."""
+    table = list(csv.reader(io.StringIO(rows)))
     for number, row in enumerate(table):
         if len(row) != width:
             _wrong_width(number, width, len(row))
     texts = {i: [row[i] for row in table] for i in labels}
     keep = [i for i in range(width) if i not in labels]
-    return "[" + ",".join(",".join(row[i] for i in keep) for row in table) + "]", texts
+    return len(table), "[" + ",".join(",".join(row[i] for i in keep) for row in table) + "]", texts
 
 
 def _wrong_width(row: int, width: int, found: int) -> None:
@@ -139,14 +141,13 @@ def _wrong_width(row: int, width: int, found: int) -> None:
     )
 
 
-def _numbers(cells: str, rows: str, names: list[str], labels: list[int]) -> NDArray[np.float64]:
+def _numbers(cells: str, count: int, rows: str, names: list[str], labels: list[int]) -> NDArray[np.float64]:
     """The number cells as a table of floats, one column per numeric input."""
     width = len(names) - len(labels)
     try:  # orjson reads the cells as one JSON array of numbers: strict and fast
         values = orjson.loads(cells)
     except orjson.JSONDecodeError:
         values = None
-    count = rows.count("\n") + 1
     if values is None or len(values) != count * width or not set(map(type, values)) <= {int, float}:
         _name_bad_cell(rows, names, labels)
     return np.array(values, dtype=float).reshape(count, width)
@@ -154,7 +155,9 @@ def _numbers(cells: str, rows: str, names: list[str], labels: list[int]) -> NDAr
 
 def _name_bad_cell(rows: str, names: list[str], labels: list[int]) -> None:
     """Refuse the first cell that is not a number, by its row and column."""
-    for number, row in enumerate(csv.reader(rows.split("\n"))):
+    for number, row in enumerate(csv.reader(io.StringIO(rows))):
+        if not row:
+            raise invalid("body", f"row {number + 2} of the file (the header is row 1) is empty")
         for column, cell in enumerate(row):
             if column in labels:
                 continue
@@ -164,7 +167,8 @@ def _name_bad_cell(rows: str, names: list[str], labels: list[int]) -> None:
                 where = f"row {number + 2}, column {column + 1} ({names[column]})"
                 shown = f"{cell[:20]!r}" if cell.strip() else "empty"
                 raise invalid(names[column], f"{where}: {shown}: {error.messages[0]}") from None
-    raise invalid("body", "every CSV cell below the header must be a number")  # not reached: a cell above fails
+    # Each cell reads as a number on its own, but the table as a whole did not: say what is expected.
+    raise invalid("body", "every CSV cell below the header must be a number, one per column")
 
 
 def _commas_per_row(rows: str) -> NDArray[np.intp]:

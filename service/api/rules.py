@@ -6,7 +6,6 @@ names the limit in the request's own unit, and appends cautions to ``warnings``.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from typing import Any
 
@@ -20,10 +19,8 @@ from service.api.quantities import any_true, format_value, quantity
 from service.fluids.catalog import Catalog, Fluid, LiquidDensity
 from service.fluids.cautions import Caution, Warnings
 from service.physics import atmosphere, site
-from service.physics.units import Unit
+from service.physics.units import STANDARD_GRAVITY, Unit
 
-GRAVITY = 9.80665
-"""Standard acceleration of gravity g [m/s2] (CGPM 1901), for heads of liquid."""
 WEATHER_SPREAD = 0.03
 """Typical departure of real barometric pressure from the standard atmosphere (common practice, no source)."""
 NEAR_CRITICAL = 0.98
@@ -157,7 +154,8 @@ def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
         )
     if baro is not None:
         low, high = site.AIR_PRESSURE_RANGE
-        hint = _unit_hint(baro, inputs.units["pressure"], low, high)
+        outside = (baro < low) | (baro > high)
+        hint = _unit_hint(baro, outside, inputs.units["pressure"]) if any_true(outside) else ""
         refuse_outside(
             "barometric_pressure",
             baro,
@@ -182,24 +180,15 @@ def local_atmosphere(inputs: Inputs) -> NDArray[np.float64] | None:
     return atmosphere.pressure_at_elevation(elevation, sea_level_pressure(inputs))
 
 
-def _unit_hint(values: NDArray, unit: Unit, low: float, high: float) -> str:
-    """For a barometer reading outside the band: the units in which its first such number would fit."""
-    outside = np.flatnonzero((np.ravel(values) < low) | (np.ravel(values) > high))
-    if not outside.size:
-        return ""
-    number = float(unit.from_si(float(np.ravel(values)[outside[0]])))
-    groups: list[list[Unit]] = []  # units alike (hPa and mbar, Torr and mmHg) share a reading
-    for fit in site.units_read_as_air_pressure(number):
-        if fit.code == unit.code:
-            continue
-        alike = next((g for g in groups if math.isclose(g[0].scale, fit.scale, rel_tol=1e-3)), None)
-        if alike is None:
-            groups.append([fit])
-        else:
-            alike.append(fit)
+def _unit_hint(values: NDArray, outside: NDArray | bool, unit: Unit) -> str:
+    """For a barometer reading outside the band: the air pressures its first such number would be in the
+    units it fits (two at most)."""
+    number = float(unit.from_si(float(np.ravel(values)[np.flatnonzero(np.ravel(outside))[0]])))
     readings = [
-        f"{format_value(number * group[0].scale, unit)} in {' or '.join(u.code for u in group)}" for group in groups[:2]
-    ]
+        f"{format_value(pascal, unit)} in {' or '.join(u.code for u in units)}"
+        for pascal, units in site.air_pressure_readings(number)
+        if unit.code not in {u.code for u in units}
+    ][:2]
     if not readings:
         return ""
     return f"; as a barometer reading, {number:g} would be {', or '.join(readings)}: check the unit it was sent in"
@@ -328,9 +317,25 @@ def boiling_pressure_at_depth(
     density = require_liquid_density(fluid)
     pressure = surface
     for _ in range(DEPTH_ITERATIONS):
-        pressure = surface + density.density(fluid.saturation_temperature(pressure)) * GRAVITY * depth
+        pressure = surface + density.density(fluid.saturation_temperature(pressure)) * STANDARD_GRAVITY * depth
     check_boiling_pressure(fluid, pressure, inputs.units["pressure"], inputs.options["extrapolate"], warnings)
     return pressure, density
+
+
+def pressure_fields(
+    inputs: Inputs, local: LocalPressure, unit: Unit, at_depth: NDArray | None = None
+) -> dict[str, Any]:
+    """The pressures an answer shows: the gauge reading as sent, the absolute pressure used, and, where the
+    sensor sits at a depth (``at_depth``, the pressure there [Pa]), the pressure on the surface."""
+    out: dict[str, Any] = {}
+    if inputs.get("gauge_pressure") is not None:
+        out["gauge_pressure"] = inputs.echo("gauge_pressure", unit)
+    if at_depth is None:
+        out["pressure"] = local.quantity(inputs, unit)
+    else:
+        out["pressure"] = quantity(at_depth, unit)
+        out["surface_pressure"] = local.quantity(inputs, unit)
+    return out
 
 
 def temperature_uncertainty(slope: NDArray, inputs: Inputs) -> NDArray | None:
@@ -397,7 +402,8 @@ SITE_INPUTS = {
     "barometric_pressure": Input(
         "pressure",
         "Absolute air pressure measured on site (a barometer reading, not reduced to sea level), between "
-        "40 kPa and 140 kPa: the band air pressure takes where people work.",
+        f"{site.AIR_PRESSURE_RANGE[0] / 1e3:g} kPa and {site.AIR_PRESSURE_RANGE[1] / 1e3:g} kPa: the band air "
+        "pressure takes where people work.",
         reference="absolute",
     ),
     "elevation": Input(

@@ -24,6 +24,7 @@ from service.api.rules import (
     check_liquid_temperature,
     local_pressure,
     note_near_critical,
+    pressure_fields,
     provenance,
     refuse_outside,
     sea_level_pressure,
@@ -51,15 +52,11 @@ def boiling_point(inputs: Inputs) -> dict[str, Any]:
     temperature = fluid.saturation_temperature(pressure)
     slope = 1.0 / fluid.saturation_pressure_slope(temperature)
     note_near_critical(fluid, temperature, t_unit, warnings)
-    answer: dict[str, Any] = {"fluid": fluid.id}
-    if inputs.get("gauge_pressure") is not None:
-        answer["gauge_pressure"] = inputs.echo("gauge_pressure", p_unit)
-    if density is None:
-        answer["pressure"] = local.quantity(inputs, p_unit)
-    else:
-        answer["pressure"] = quantity(pressure, p_unit)
-        answer["surface_pressure"] = local.quantity(inputs, p_unit)
-    answer["boiling_point"] = quantity(temperature, t_unit)
+    answer = {
+        "fluid": fluid.id,
+        **pressure_fields(inputs, local, p_unit, None if density is None else pressure),
+        "boiling_point": quantity(temperature, t_unit),
+    }
     uncertainty = temperature_uncertainty(slope, inputs)
     if uncertainty is not None:
         answer["boiling_point_uncertainty"] = difference(uncertainty, t_unit)
@@ -176,7 +173,7 @@ for _operation in (
             "altimeter setting does."
         ),
         inputs={
-            "pressure": Input("pressure", "Absolute air pressure."),
+            "pressure": Input("pressure", "Absolute air pressure.", reference="absolute"),
             "boiling_point": Input("temperature", "Temperature at which `fluid` boils in the open."),
             "sea_level_pressure": SITE_INPUTS["sea_level_pressure"],
         },

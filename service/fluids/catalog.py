@@ -30,11 +30,9 @@ from service.physics.correlations import (
     Wagner,
     inverse_table,
 )
-from service.physics.units import resolve_unit
+from service.physics.units import ATMOSPHERE, resolve_unit
 
 DATA_DIR = Path(__file__).with_name("data")
-ONE_ATMOSPHERE = 101_325.0
-"""The standard atmosphere [Pa] (CGPM 1954), the pressure of a normal boiling point."""
 
 
 class CatalogError(ValueError):
@@ -139,9 +137,9 @@ class Fluid:
         service computes it; None where the fluid does not boil at 1 atm (below its triple-point pressure or
         above its critical pressure) or the equation does not reach it."""
         low, high = self.pressure_limits
-        if not (self.triple_pressure < ONE_ATMOSPHERE < self.critical_pressure and low <= ONE_ATMOSPHERE <= high):
+        if not (self.triple_pressure < ATMOSPHERE < self.critical_pressure and low <= ATMOSPHERE <= high):
             return None
-        return float(self.saturation_temperature(ONE_ATMOSPHERE))
+        return float(self.saturation_temperature(ATMOSPHERE))
 
     def saturation_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """Vapor pressure [Pa] at ``temperature`` [K]."""

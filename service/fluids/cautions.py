@@ -19,10 +19,6 @@ class Caution:
     text: str
     points: NDArray[np.bool_] | np.bool_ | bool
 
-    def count(self) -> int:
-        """How many points the mask marks."""
-        return int(np.count_nonzero(self.points))
-
 
 Warnings = list[str | Caution]
 """An answer's warnings: plain text concerns every point."""

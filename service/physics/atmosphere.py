@@ -25,9 +25,8 @@ import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
 from service.physics.blocks import blockwise
+from service.physics.units import STANDARD_GRAVITY  # g0 [m/s2] of the 1976 standard, as the CGPM's
 
-STANDARD_GRAVITY = 9.80665
-"""g0 [m/s2]."""
 GAS_CONSTANT = 8.31432
 """R* [J/(mol K)], the value the 1976 standard adopts."""
 MOLAR_MASS_AIR = 0.0289644

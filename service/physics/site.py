@@ -37,3 +37,20 @@ def units_read_as_air_pressure(number: float) -> list[Unit]:
     low, high = AIR_PRESSURE_RANGE
     fits = [u for u in UNITS.values() if u.dimension == "pressure" and low <= number * u.scale <= high]
     return sorted(fits, key=lambda u: abs(math.log(number * u.scale / SEA_LEVEL_PRESSURE)))
+
+
+def air_pressure_readings(number: float) -> list[tuple[float, list[Unit]]]:
+    """The air pressures [Pa] that ``number`` would be in the units it fits, each with its units: units
+    of one size (hPa and mbar, Torr and mmHg) share a reading.
+
+    >>> [(round(p), [u.code for u in units]) for p, units in air_pressure_readings(853.9)]
+    [(113844, ['Torr', 'mmHg']), (85390, ['hPa', 'mbar'])]
+    """
+    readings: list[tuple[float, list[Unit]]] = []
+    for unit in units_read_as_air_pressure(number):
+        alike = next((units for p, units in readings if math.isclose(p, number * unit.scale, rel_tol=1e-3)), None)
+        if alike is None:
+            readings.append((number * unit.scale, [unit]))
+        else:
+            alike.append(unit)
+    return readings

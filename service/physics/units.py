@@ -15,8 +15,8 @@ pure scales; temperature scales carry an offset. Factors are exact by definition
 - 1 ft = 0.3048 m (international foot, 1959).
 
 How a unit is spelled (:func:`resolve_unit`): the canonical codes and aliases match exactly, and
-the all-lower, all-upper and capitalised forms of those made of plain letters too (`kpa`, `PSI`),
-unless such a form could also be read as another unit: `MPA` and `mpa` could be the megapascal or
+their all-lower, all-upper and capitalised forms too (`kpa`, `PSI`, `mm hg`, `°c`), unless such a
+form could also be read as another unit: `MPA` and `mpa` could be the megapascal or
 the millipascal, `MBAR` the millibar or the megabar, so only `MPa` and `mbar` are read as those. A
 spelling may mark its pressure as absolute (`psia`, `bara`, `kPaA`) or gauge (`psig`, `barg`,
 `kPag`); where that disagrees with the input it is given for, it is refused.
@@ -73,8 +73,10 @@ def _numbers(value: ArrayLike) -> NDArray[np.float64] | float:
     return value if isinstance(value, float | np.ndarray) else np.asarray(value, dtype=float)
 
 
-_ATM = 101_325.0
-_G = 9.80665  # standard acceleration of gravity [m/s2] (CGPM 1901)
+ATMOSPHERE = 101_325.0
+"""The standard atmosphere [Pa] (CGPM 1954)."""
+STANDARD_GRAVITY = 9.80665
+"""The standard acceleration of gravity g [m/s2] (CGPM 1901): heads of liquid, the kgf, the water columns."""
 _PRESSURE = (
     Unit("Pa", "pressure", 1.0, name="pascal"),
     Unit("hPa", "pressure", 100.0, name="hectopascal"),
@@ -82,14 +84,14 @@ _PRESSURE = (
     Unit("MPa", "pressure", 1e6, name="megapascal"),
     Unit("bar", "pressure", 1e5, name="bar"),
     Unit("mbar", "pressure", 100.0, name="millibar"),
-    Unit("atm", "pressure", _ATM, name="standard atmosphere"),
+    Unit("atm", "pressure", ATMOSPHERE, name="standard atmosphere"),
     Unit("psi", "pressure", 6894.757293168, name="pound-force per square inch"),
     Unit("mmHg", "pressure", 133.322387415, name="millimetre of mercury"),
-    Unit("Torr", "pressure", _ATM / 760.0, name="torr"),
+    Unit("Torr", "pressure", ATMOSPHERE / 760.0, name="torr"),
     Unit("inHg", "pressure", 3386.389, name="inch of mercury (32 degF)"),
-    Unit("kgf/cm2", "pressure", _G * 1e4, name="kilogram-force per square centimetre"),
-    Unit("mH2O", "pressure", 1000.0 * _G, name="metre of water (conventional, 4 degC)"),
-    Unit("inH2O", "pressure", 1000.0 * _G * 0.0254, name="inch of water (conventional, 4 degC)"),
+    Unit("kgf/cm2", "pressure", STANDARD_GRAVITY * 1e4, name="kilogram-force per square centimetre"),
+    Unit("mH2O", "pressure", 1000.0 * STANDARD_GRAVITY, name="metre of water (conventional, 4 degC)"),
+    Unit("inH2O", "pressure", 1000.0 * STANDARD_GRAVITY * 0.0254, name="inch of water (conventional, 4 degC)"),
 )
 _TEMPERATURE = (
     Unit("K", "temperature", 1.0, name="kelvin"),
@@ -169,8 +171,8 @@ _OTHER_UNITS = {
 
 
 def _spellings() -> dict[str, Unit]:
-    """Every accepted spelling: the exact ones, then the lower, upper and capitalised forms of those that are
-    plain letters, where no other unit folds to the same letters."""
+    """Every accepted spelling: the exact ones, then their lower, upper and capitalised forms, where no other
+    unit folds to the same letters."""
     exact = dict(UNITS)
     exact |= {alias: UNITS[code] for alias, code in _ALIASES.items()}
     exact |= {name: dataclasses.replace(UNITS[code], reference=ref) for name, (code, ref) in _REFERENCED.items()}
@@ -181,7 +183,7 @@ def _spellings() -> dict[str, Unit]:
         meanings[name.casefold()].add(name)
     out = dict(exact)
     for name, unit in exact.items():
-        if name.isascii() and name.isalpha() and len(meanings[name.casefold()]) == 1:
+        if len(meanings[name.casefold()]) == 1:
             for form in (name.lower(), name.upper(), name.capitalize()):
                 out.setdefault(form, unit)
     return out

@@ -93,8 +93,8 @@ def test_post_query_takes_options_and_single_values_once(client) -> None:
     # but for a unit given alike in both.
     both = client.post("/v1/boiling-point?fluid=ethanol&digits=4", json={"pressure": [50, 100]}).get_json()
     assert both["fluid"] == "ethanol" and both["boiling_point"]["value"] == [61.35, 77.93]
-    single = client.post("/v1/boiling-point?pressure=100", json={"tag": ["a", "b"]}).get_json()
-    assert single["tag"] == ["a", "b"] and single["pressure"]["value"] == [100.0, 100.0]
+    single = client.post("/v1/boiling-point?pressure=100", json={"tag": "drum"}).get_json()
+    assert single["tag"] == "drum" and single["pressure"]["value"] == 100.0
     problem(client.post("/v1/boiling-point?pressure=100", json={"pressure": 100}), 400)
     problem(client.post("/v1/boiling-point?pressure_unit=kPa", json={"pressure": 100, "pressure_unit": "psi"}), 400)
     assert (
@@ -192,3 +192,37 @@ def test_the_body_limit_is_named(app) -> None:
         assert body["status"] == 413 and "the limit is 1000 bytes" in body["detail"]
     finally:
         app.config["MAX_CONTENT_LENGTH"] = before
+
+
+def test_absolute_spellings_fit_every_absolute_pressure_and_a_difference(client) -> None:
+    # psia marks an absolute pressure: sea-level pressures, air pressures and uncertainties take it as psi.
+    for query in (
+        "/v1/atmosphere?elevation=1420&sea_level_pressure=14.7&pressure_unit=psia",
+        "/v1/elevation?pressure=12.38&pressure_unit=psia",
+        "/v1/boiling-point?barometric_pressure=12.38&pressure_unit=psia&pressure_uncertainty=0.01",
+    ):
+        assert client.get(query).status_code == 200, query
+    posted = client.post("/v1/elevation", json={"pressure": {"value": 12.38, "unit": "PSIA"}})
+    assert posted.status_code == 200
+
+
+def test_option_numbers_take_the_json_number_syntax_too(client) -> None:
+    query = "/v1/saturation-margin?pressure=100&temperature=90&tolerance="
+    assert client.get(query + "0.5").status_code == 200
+    assert "tolerance" in problem(client.get(query + "１"), 400)["errors"]
+    fluid = {"name": "lab oil", "boiling_point": "１００", "pressure": "101.325"}
+    assert problem(client.post("/v1/boiling-point", json={"fluid": fluid, "pressure": 50}), 400)["errors"]
+
+
+@pytest.mark.parametrize(
+    ("body", "says"),
+    [
+        ({"pressure": [100, 200], "tag": ["a"]}, "has 1 labels for 2 points"),
+        ({"pressure": 100, "tag": []}, "non-empty array"),
+        ({"pressure": [100, 200], "tag": ["a", "b\nboiling_point: 50 degC"]}, "control characters"),
+        ({"pressure": 100, "fluid": {"name": "oil\ntag", "boiling_point": 300}}, "control characters"),
+    ],
+)
+def test_tags_and_names_that_would_corrupt_an_answer_are_refused(client, body: dict, says: str) -> None:
+    assert says in problem(client.post("/v1/boiling-point", json=body), 400)["detail"]
+    assert "control characters" in problem(client.get("/v1/boiling-point?pressure=100&tag=x%0Ay"), 400)["detail"]

@@ -123,3 +123,16 @@ def test_echoed_inputs_come_back_as_sent(client) -> None:
         "/v1/boiling-point", json={"gauge_pressure": {"value": [10, 20], "unit": "psig"}, "barometric_pressure": 85.4}
     ).get_json()
     assert posted["gauge_pressure"] == {"value": pytest.approx([68.9475729, 137.8951459]), "unit": "kPa"}
+
+
+def test_digits_never_turn_a_number_into_null(client) -> None:
+    # 1.75e308 rounded to 2 digits would be 1.8e308, beyond double range: it stays as it is.
+    body = client.get("/v1/npsh-available?temperature=72&pressure=100&static_head=1.75e308&digits=2").get_json()
+    assert body["static_head"]["value"] == 1.75e308 and body["npsh_available"]["value"] == 1.75e308
+    assert body["pressure"]["value"] == 100.0
+
+
+def test_a_tag_starting_with_a_hash_stays_a_row(client) -> None:
+    payload = {"pressure": [90, 100], "tag": ["#1 drum", "#2 drum"]}
+    notes, rows = csv_answer(client.post("/v1/boiling-point?format=csv", json=payload).get_data(as_text=True))
+    assert [row["tag"] for row in rows] == ["#1 drum", "#2 drum"] and len(notes) == 3

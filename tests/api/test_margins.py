@@ -113,6 +113,9 @@ def test_negative_npsh_available_warns_for_its_points(client) -> None:
 def test_a_thermometer_check_reads_a_reading_error_not_superheat(client) -> None:
     # A bath probe 0.15 m deep reads 0.13 K above the surface boiling point; the head of 0.15 m of boiling water
     # raises the saturation temperature there by about 0.45 K, so the reading is below boiling, not above.
+    # By hand, from steam-table values (IAPWS-95, recalled from memory): saturated water near 95.2 degC has
+    # rho' = 961.9 kg/m3 and dp/dT = 3.14 kPa/K at 85.39 kPa, so 961.9 x 9.80665 x 0.15 Pa = 1.415 kPa of head
+    # and 1.415 / 3.14 = 0.45 K; dT/dp = 0.3187 K/kPa.
     surface = client.get("/v1/boiling-point?barometric_pressure=85.39").get_json()["boiling_point"]["value"]
     reading = surface + 0.13
     flat = client.get(f"/v1/saturation-margin?barometric_pressure=85.39&temperature={reading}").get_json()

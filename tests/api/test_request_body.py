@@ -59,3 +59,11 @@ def test_a_csv_tag_column_is_echoed_beside_each_row(client) -> None:
     body = r.get_json()
     assert body["tag"] == ["PT-101", "PT-102, drum B"]
     assert body["gauge_pressure"]["value"] == pytest.approx([68.9475729, 137.8951459])
+
+
+def test_quoted_csv_cells_and_blank_rows(client) -> None:
+    # RFC 4180 lets a writer quote any cell; a blank row in the middle is named.
+    quoted = client.post("/v1/boiling-point", data=b'pressure\n"100"\n200\n', content_type="text/csv")
+    assert quoted.status_code == 200 and len(quoted.get_json()["boiling_point"]["value"]) == 2
+    blank = problem(client.post("/v1/boiling-point", data=b"pressure\n100\n\n200\n", content_type="text/csv"), 400)
+    assert "row 3 of the file (the header is row 1) is empty" in blank["detail"]

@@ -309,3 +309,18 @@ def test_instances_keep_no_control_socket_to_share(tmp_path: Path) -> None:
         first.process.wait(timeout=30)
         assert get(second.port, "/healthz")[0] == 200
         assert not list(tmp_path.rglob("*.ctl")), list(tmp_path.rglob("*"))
+
+
+def test_a_client_that_never_finishes_its_headers_is_let_go() -> None:
+    # The headers of a request, like the wait for the next one on a kept-alive connection, get gunicorn's
+    # keepalive time (5 s, docker/gunicorn.conf.py); then the connection is closed, with nothing sent.
+    with gunicorn() as server:
+        started = time.monotonic()
+        client = socket.create_connection(("127.0.0.1", server.port))
+        client.sendall(b"GET /healthz HTTP/1.1\r\nHost: t\r\n")  # and never the blank line
+        client.settimeout(15)
+        assert get(server.port, "/healthz")[0] == 200
+        assert client.recv(1024) == b""
+        waited = time.monotonic() - started
+        client.close()
+    assert 4 < waited < 8, waited

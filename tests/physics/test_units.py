@@ -106,12 +106,30 @@ def test_gauge_and_absolute_spellings_fit_only_their_pressures() -> None:
     assert resolve_unit("psi", "pressure", "gauge") == resolve_unit("psi", "pressure")
 
 
-def test_every_listed_spelling_resolves_and_no_two_units_share_a_folded_spelling() -> None:
+def test_no_two_units_share_a_spelling_up_to_case() -> None:
+    # Case never picks a unit silently: accepted spellings that differ only in letter case name one unit.
+    by_fold: dict[tuple[str, str], set[str]] = {}
     for dimension in ("pressure", "temperature", "length"):
-        for reference in (None, "absolute", "gauge"):
+        for reference in (None, "gauge"):
             for name in spellings(dimension, reference):  # type: ignore[arg-type]
-                assert resolve_unit(name, dimension, reference).dimension == dimension  # type: ignore[arg-type]
-    assert "MPA" not in spellings("pressure") and "mbar" in spellings("pressure")
+                code = resolve_unit(name, dimension, reference).code  # type: ignore[arg-type]
+                by_fold.setdefault((dimension, name.casefold()), set()).add(code)
+    assert all(len(found) == 1 for found in by_fold.values()), {k: v for k, v in by_fold.items() if len(v) > 1}
+    assert {"MPA", "mpa", "MBAR"}.isdisjoint(spellings("pressure")) and "mbar" in spellings("pressure")
+
+
+@pytest.mark.parametrize(
+    ("spelled", "dimension", "code"),
+    [
+        ("°c", "temperature", "degC"),
+        ("deg c", "temperature", "degC"),
+        ("mm hg", "pressure", "mmHg"),
+        ("mh2o", "pressure", "mH2O"),
+        ("KGF/CM2", "pressure", "kgf/cm2"),
+    ],
+)
+def test_spellings_with_signs_and_spaces_take_any_case_too(spelled: str, dimension: str, code: str) -> None:
+    assert resolve_unit(spelled, dimension).code == code  # type: ignore[arg-type]
 
 
 def test_every_code_round_trips_arrays() -> None:
