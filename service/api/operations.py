@@ -98,7 +98,7 @@ TAG = fields.String(
 
 
 class TagField(fields.Field):
-    """A POST's ``tag``: one string, or an array of strings (one per point, broadcast like a quantity)."""
+    """A POST's ``tag``: one string, or a non-empty array of strings (one per point; ``parse`` checks the count)."""
 
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> str | list[str]:
         tags = value if isinstance(value, list) else [value]

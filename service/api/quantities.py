@@ -131,9 +131,8 @@ request's pressure_unit)."""
 def unit_schema(dimension: Dimension, reference: Reference | None = None) -> dict[str, Any]:
     """A reference to the document's list of the unit spellings a quantity of ``dimension`` (and kind of
     pressure) takes."""
-    name = next(
-        n for n, (d, r) in UNIT_SCHEMAS.items() if d == dimension and r == (reference if reference == "gauge" else None)
-    )
+    listed = (dimension, "gauge" if reference == "gauge" else None)  # an absolute pressure takes pressure_unit's list
+    name = next(n for n, kind in UNIT_SCHEMAS.items() if kind == listed)
     return {"$ref": f"#/components/schemas/{name}"}
 
 

@@ -130,3 +130,21 @@ def test_a_thermometer_check_reads_a_reading_error_not_superheat(client) -> None
     u = uncertain["saturation_temperature_uncertainty"]["value"]
     assert u == pytest.approx(0.5 * 0.3187, rel=0.01)
     assert uncertain["state"] == "saturated"
+
+
+@pytest.mark.parametrize(
+    ("query", "status", "field"),
+    [
+        ("depth=-0.1", 422, "depth"),  # above the liquid surface
+        ("pressure_uncertainty=-0.5", 422, "pressure_uncertainty"),
+        # 300 m of hot water below 22 MPa: past water's critical pressure, 22.064 MPa (IAPWS 1992).
+        ("depth=300&pressure=22000", 422, "pressure"),
+        ("depth=abc", 400, "depth"),
+        ("pressure_uncertainty=0.5&pressure_unit=psig", 400, "pressure_unit"),
+        ("depth=0.1&length_unit=M", 400, "length_unit"),  # M is the nautical mile, not the metre
+    ],
+)
+def test_margin_instrument_inputs_refuse_what_makes_no_sense(client, query: str, status: int, field: str) -> None:
+    site = "" if "pressure=" in query.replace("_pressure", "") else "barometric_pressure=85.39&"
+    r = client.get(f"/v1/saturation-margin?temperature=90&{site}{query}")
+    assert r.status_code == status and field in r.get_json()["errors"], r.get_json()
