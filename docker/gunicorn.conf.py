@@ -36,7 +36,7 @@ _JSON_STDOUT = {"class": "logging.StreamHandler", "formatter": "json", "stream":
 logconfig_dict = {  # gunicorn's own handler names, pointed at JSON lines on stdout
     "version": 1,
     "disable_existing_loggers": False,
-    "formatters": {"json": {"()": "service.api.guard.JsonLogFormatter"}},
+    "formatters": {"json": {"()": "service.api.observability.JsonLogFormatter"}},
     "handlers": {"console": _JSON_STDOUT, "error_console": _JSON_STDOUT},
     "root": {"level": loglevel.upper(), "handlers": ["console"]},
     "loggers": {"gunicorn.error": {"handlers": ["error_console"], "level": loglevel.upper(), "propagate": False}},

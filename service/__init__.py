@@ -7,11 +7,9 @@ from typing import Any
 
 from flask import Flask
 
-from service.api import register_api
-from service.api.formats import AnswerCache
-from service.api.guard import configure_logging
-from service.api.guard import install as install_guards
-from service.api.jsonio import OrjsonProvider
+from service.api import observability, register_api, security
+from service.api.answer_cache import AnswerCache
+from service.api.json_provider import OrjsonProvider
 from service.config import settings
 from service.fluids.catalog import load_catalog
 
@@ -25,7 +23,8 @@ def create_app(config: Mapping[str, Any] | None = None) -> Flask:
     # A bad operator file raises CatalogError here, naming file, entry and field: start-up stops.
     app.extensions["catalog"] = load_catalog(extra_files=app.config["EXTRA_CATALOGS"])
     app.extensions["answers"] = AnswerCache(app.config["ANSWER_CACHE_SIZE"])
-    configure_logging(app.config["LOG_LEVEL"])
-    install_guards(app)
+    observability.configure_logging(app.config["LOG_LEVEL"])
+    observability.install(app)
+    security.install(app)
     register_api(app)
     return app

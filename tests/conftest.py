@@ -14,6 +14,7 @@ from flask import Flask
 from werkzeug.exceptions import MethodNotAllowed, NotFound
 
 from service import create_app
+from service.fluids.catalog import Catalog, load_catalog
 
 ROOT = Path(__file__).resolve().parents[1]
 
@@ -26,6 +27,12 @@ def openapi_document() -> dict[str, Any]:
 @pytest.fixture(scope="session")
 def app() -> Flask:
     return create_app()
+
+
+@pytest.fixture(scope="session")
+def catalog() -> Catalog:
+    """The built-in fluid catalog, loaded and validated once."""
+    return load_catalog()
 
 
 class ContractClient:

@@ -22,7 +22,8 @@ import CoolProp
 import numpy as np
 from CoolProp.CoolProp import PropsSI, get_fluid_param_string, get_global_param_string
 
-from service.fluids.catalog import Catalog, Fluid
+from service.fluids.catalog import Catalog
+from service.fluids.fluid import Fluid
 
 POINTS = 12
 """Log-spaced pressures per fluid."""

@@ -27,7 +27,8 @@ from pathlib import Path
 if __package__ in (None, ""):  # run as a script: make the repository root importable
     sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
-from service.fluids.catalog import Fluid, load_catalog
+from service.fluids.catalog import load_catalog
+from service.fluids.fluid import Fluid
 from tools.catalog_accuracy import (
     DENSITY_LIMIT,
     DENSITY_POINTS,

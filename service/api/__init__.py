@@ -4,15 +4,15 @@ from __future__ import annotations
 
 from flask import Flask
 
-from service.api import atmosphere, explorer, fluids, margins, meta, saturation
 from service.api.openapi import build_document
+from service.api.paths import blueprints
 from service.api.problems import register_problem_handlers
 
 
 def register_api(app: Flask) -> None:
     """Attach every path, the problem handlers, and the OpenAPI document built once."""
     register_problem_handlers(app)
-    for module in (meta, atmosphere, saturation, margins, fluids, explorer):
-        app.register_blueprint(module.blueprint)
+    for blueprint in blueprints():
+        app.register_blueprint(blueprint)
     with app.app_context():
         app.extensions["openapi"] = build_document()

@@ -16,13 +16,13 @@ from apispec import APISpec
 from apispec.ext.marshmallow import MarshmallowPlugin
 from flask import current_app
 
-from service.api import schemas
-from service.api.fluid_field import EquationFluid, PointFluid
-from service.api.fluids import FluidQuery, FluidSearchQuery
-from service.api.formats import as_csv, as_text, shown
-from service.api.operations import OPERATIONS, Operation
-from service.api.problems import PROBLEM_TYPE, TITLES, problem_type
-from service.api.quantities import UNIT_SCHEMAS, QuantityField, UnitField, unit_schema, unit_spellings_schema
+from service.api import answer_schemas
+from service.api.computing_path import OPERATIONS, Operation
+from service.api.fluid_input import EquationFluid, PointFluid
+from service.api.paths.fluid_catalog import FluidQuery, FluidSearchQuery
+from service.api.problems import PROBLEM_TYPE, TITLES
+from service.api.quantity_fields import UNIT_SCHEMAS, QuantityField, UnitField, unit_schema, unit_spellings_schema
+from service.api.rendering import as_csv, as_text, shown
 from service.config import VERSION
 
 DESCRIPTION = """\
@@ -213,11 +213,12 @@ def _json(schema: Any, description: str = "The answer.") -> dict[str, Any]:
 
 def build_document() -> dict[str, Any]:
     """The whole OpenAPI 3.1 document as a dict (needs an application context)."""
+    marshmallow_plugin = MarshmallowPlugin()
     spec = APISpec(
         title="Boiling-point service",
         version=VERSION,
         openapi_version="3.1.0",
-        plugins=[MarshmallowPlugin()],
+        plugins=[marshmallow_plugin],
         info={"description": _paragraphs(DESCRIPTION), "license": {"name": "MIT", "identifier": "MIT"}},
         servers=[{"url": "/", "description": "this service"}],
         components={
@@ -231,9 +232,11 @@ def build_document() -> dict[str, Any]:
         },
         security=[{}, {"apiKey": []}],
     )
-    spec.plugins[0].converter.add_attribute_function(_quantity_property)  # type: ignore[attr-defined]
-    spec.plugins[0].converter.add_attribute_function(_unit_property)  # type: ignore[attr-defined]
-    spec.components.schema("Problem", schema=schemas.Problem)
+    # The plugin's converter exists once the spec has initialised it: apispec documents this way to teach it
+    # custom fields ("Custom Fields" in apispec's marshmallow docs).
+    marshmallow_plugin.converter.add_attribute_function(_quantity_property)
+    marshmallow_plugin.converter.add_attribute_function(_unit_property)
+    spec.components.schema("Problem", schema=answer_schemas.Problem)
     for name in UNIT_SCHEMAS:
         spec.components.schema(name, unit_spellings_schema(name))
     spec.components.schema("EquationFluid", schema=EquationFluid)
@@ -255,23 +258,27 @@ def build_document() -> dict[str, Any]:
             "listFluids",
             "List or search the fluid catalog",
             [{"in": "query", "schema": FluidSearchQuery}],
-            {"200": _json(schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400, *_GUARDED))},
+            {"200": _json(answer_schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400, *_GUARDED))},
         ),
         (
             "/v1/fluids/{name}",
             "getFluid",
             "One fluid: identity, fixed points, equation and source",
             [fluid_name, {"in": "query", "schema": FluidQuery}],
-            {"200": _json(schemas.FluidDetail), "304": _NOT_MODIFIED, **_problem_responses((400, 404, *_GUARDED))},
+            {
+                "200": _json(answer_schemas.FluidDetail),
+                "304": _NOT_MODIFIED,
+                **_problem_responses((400, 404, *_GUARDED)),
+            },
         ),
-        ("/", "index", "The paths this service answers", None, {"200": _json(schemas.Index)}),
-        ("/healthz", "healthz", "Liveness: the process answers", None, {"200": _json(schemas.Health)}),
+        ("/", "index", "The paths this service answers", None, {"200": _json(answer_schemas.Index)}),
+        ("/healthz", "healthz", "Liveness: the process answers", None, {"200": _json(answer_schemas.Health)}),
         (
             "/readyz",
             "readyz",
             "Readiness: the catalog is loaded",
             None,
-            {"200": _json(schemas.Health), **_problem_responses((503,))},
+            {"200": _json(answer_schemas.Health), **_problem_responses((503,))},
         ),
         (
             "/metrics",
@@ -311,9 +318,7 @@ def build_document() -> dict[str, Any]:
         if not catalog_path:
             operation["security"] = []  # probes, scraper and documentation need no key
         spec.path(path=path, operations={"get": {**operation, "responses": responses}})
-    document = spec.to_dict()
-    document["components"]["schemas"]["Problem"]["properties"]["type"]["examples"] = [problem_type(422)]
-    return document
+    return spec.to_dict()
 
 
 def document_yaml() -> str:

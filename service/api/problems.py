@@ -9,7 +9,7 @@ from flask import Flask, Response, current_app, g, request
 from marshmallow import ValidationError
 from werkzeug.exceptions import HTTPException
 
-from service.api.formats import MEDIA_TYPES, chosen_format
+from service.api.rendering import MEDIA_TYPES, chosen_format
 
 PROBLEM_TYPE = "application/problem+json"
 _LOG = logging.getLogger(__name__)

@@ -18,8 +18,8 @@ import orjson
 from marshmallow import ValidationError
 from numpy.typing import NDArray
 
+from service.api.numbers import OUT_OF_RANGE, parse_number
 from service.api.problems import invalid
-from service.api.quantities import OUT_OF_RANGE, parse_number
 
 BOM = b"\xef\xbb\xbf"
 TEXT_COLUMNS = frozenset({"tag"})

@@ -1,11 +1,25 @@
-"""Cautions an answer carries, and which of its points each one concerns."""
+"""Cautions an answer carries, which of its points each one concerns, and the numbers in their text."""
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from collections.abc import Mapping
+from dataclasses import dataclass, field
+from typing import Literal
 
 import numpy as np
 from numpy.typing import NDArray
+
+Kind = Literal["pressure", "temperature", "length", "temperature difference"]
+"""What a number in a message measures; the API shows it in the request's unit of that kind."""
+
+
+@dataclass(frozen=True)
+class Shown:
+    """A number in the text of a caution or a refusal [SI], to be shown in the caller's unit."""
+
+    value: float
+    kind: Kind
+    digits: int = 6
 
 
 @dataclass(frozen=True)
@@ -13,11 +27,13 @@ class Caution:
     """A warning about some points of an answer.
 
     ``points`` is a boolean mask that broadcasts to the answer's shape (a single answer: a single
-    boolean); a plain string among an answer's warnings concerns every point.
+    boolean); a plain string among an answer's warnings concerns every point. ``text`` may hold
+    ``{name}`` fields, filled with the numbers of ``shown`` in the caller's units.
     """
 
     text: str
-    points: NDArray[np.bool_] | np.bool_ | bool
+    points: NDArray[np.bool_] | np.bool_ | bool = True
+    shown: Mapping[str, Shown] = field(default_factory=dict)
 
 
 Warnings = list[str | Caution]

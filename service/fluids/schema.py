@@ -1,26 +1,20 @@
 """The schema every catalog entry obeys, built-in or added by an operator.
 
-Numbers are SI: temperature [K], pressure [Pa], molar mass [kg/mol]. A ``vapor_pressure``
-table names its equation ``form`` and carries that form's coefficients:
-
-- ``wagner``: ``coefficients`` and ``exponents`` of ln(p/pc) = (Tc/T) sum(a_i tau**e_i),
-  optionally with the ``reducing_temperature`` and ``reducing_pressure`` it was fitted with;
-- ``antoine``: ``A``, ``B``, ``C`` of log_b(p/P_unit) = A - B/(t + C) with ``log_base``
-  (10 or "e"), ``pressure_unit`` and ``temperature_unit`` exactly as a handbook prints them;
-- ``dippr101``: ``A`` to ``E`` of ln(p/Pa) = A + B/T + C ln T + D T**E;
-- ``iapws-1992``: water's own equation, no coefficients.
+Numbers are SI: temperature [K], pressure [Pa], molar mass [kg/mol]. The ``vapor_pressure`` and
+``liquid_density`` tables name their equation ``form`` and carry that form's coefficients, as
+:mod:`service.fluids.forms` declares them.
 """
 
 from __future__ import annotations
 
 import re
-from typing import Any
+from collections.abc import Mapping
+from typing import Any, ClassVar
 
-from marshmallow import INCLUDE, Schema, ValidationError, fields, validate, validates, validates_schema
+from marshmallow import INCLUDE, RAISE, Schema, ValidationError, fields, validate, validates, validates_schema
 
-from service.physics.units import codes
+from service.fluids.forms import DENSITY_FORMS, VAPOR_PRESSURE_FORMS, Form
 
-FORMS = ("wagner", "antoine", "dippr101", "iapws-1992")
 _CAS = re.compile(r"^(\d{2,7})-(\d{2})-(\d)$")
 
 _positive = validate.Range(min=0.0, min_inclusive=False)
@@ -42,13 +36,15 @@ def cas_check_digit_ok(cas: str) -> bool:
     return sum(int(d) * (i + 1) for i, d in enumerate(digits)) % 10 == int(match.group(3))
 
 
-class VaporPressureSchema(Schema):
-    """One vapor-pressure correlation: form, coefficients, stated range, citation."""
+class _TableSchema(Schema):
+    """A correlation table of one form: its coefficients, method, citation and stated range [K]."""
 
     class Meta:
-        unknown = INCLUDE
+        register = False
 
-    form = fields.String(required=True, validate=validate.OneOf(FORMS))
+    declared: ClassVar[Form]
+
+    form = fields.String(required=True)
     method = fields.String(required=True, validate=validate.Length(min=3))
     source = fields.String(required=True, validate=validate.Length(min=10))
     t_min = fields.Float(required=True, validate=_positive)
@@ -56,49 +52,38 @@ class VaporPressureSchema(Schema):
 
     @validates_schema
     def _coefficients(self, data: dict[str, Any], **_: Any) -> None:
-        required = {
-            "wagner": ("coefficients", "exponents"),
-            "antoine": ("A", "B", "C", "log_base", "pressure_unit", "temperature_unit"),
-            "dippr101": ("A", "B", "C", "D", "E"),
-            "iapws-1992": (),
-        }[data["form"]]
-        missing = [k for k in required if k not in data]
+        missing = [c.name for c in self.declared.coefficients if c.name not in data]
         if missing:
-            raise ValidationError(f"form {data['form']!r} needs {', '.join(missing)}", "form")
+            raise ValidationError(f"form {self.declared.key!r} needs {', '.join(missing)}", "form")
         if data["t_min"] >= data["t_max"]:
             raise ValidationError("t_min must be below t_max", "t_max")
-        if data["form"] == "wagner" and len(data["coefficients"]) != len(data["exponents"]):
-            raise ValidationError("coefficients and exponents differ in length", "coefficients")
-        if data["form"] == "antoine":
-            if data["log_base"] not in (10, "e"):
-                raise ValidationError('log_base must be 10 or "e"', "log_base")
-            if data["pressure_unit"] not in codes("pressure"):
-                raise ValidationError(f"pressure_unit must be one of {codes('pressure')}", "pressure_unit")
-            if data["temperature_unit"] not in codes("temperature"):
-                raise ValidationError(f"temperature_unit must be one of {codes('temperature')}", "temperature_unit")
+        for check in self.declared.checks:
+            check(data)
 
 
-class LiquidDensitySchema(Schema):
-    """A saturated-liquid density correlation: ``dippr105`` (A in kmol/m3, B, C in K, D) or water's own."""
+class _FormTable(fields.Field):
+    """A table loaded by the schema of the form it names, one of ``forms``; ``unknown`` (marshmallow's INCLUDE or
+    RAISE) says what becomes of keys the form does not declare."""
 
-    form = fields.String(required=True, validate=validate.OneOf(("dippr105", "iapws-1992")))
-    method = fields.String(required=True, validate=validate.Length(min=3))
-    source = fields.String(required=True, validate=validate.Length(min=10))
-    t_min = fields.Float(required=True, validate=_positive)
-    t_max = fields.Float(required=True, validate=_positive)
-    A = fields.Float(validate=_positive)
-    B = fields.Float(validate=_positive)
-    C = fields.Float(validate=_positive)
-    D = fields.Float()
+    def __init__(self, forms: Mapping[str, Form], unknown: str, **kwargs: Any) -> None:
+        super().__init__(**kwargs)
+        self.unknown = unknown
+        self.schemas = {
+            key: type(
+                f"{key}-table",
+                (_TableSchema,),
+                {"declared": form, **{c.name: c.field() for c in (*form.coefficients, *form.optional)}},
+            )
+            for key, form in forms.items()
+        }
 
-    @validates_schema
-    def _coefficients(self, data: dict[str, Any], **_: Any) -> None:
-        if data["form"] == "dippr105" and not {"A", "B", "C", "D"} <= set(data):
-            raise ValidationError("form 'dippr105' needs A, B, C, D", "form")
-        if data["t_min"] >= data["t_max"]:
-            raise ValidationError("t_min must be below t_max", "t_max")
-        if data["form"] == "dippr105" and data["t_max"] > data["C"]:
-            raise ValidationError("t_max is above C, where the DIPPR 105 equation ends", "t_max")
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> dict[str, Any]:
+        if not isinstance(value, Mapping):
+            raise ValidationError("must be a table")
+        form = value.get("form")
+        if not isinstance(form, str) or form not in self.schemas:
+            raise ValidationError({"form": [f"must be one of {', '.join(self.schemas)}"]})
+        return self.schemas[form](unknown=self.unknown).load(value)
 
 
 class FluidEntrySchema(Schema):
@@ -121,8 +106,8 @@ class FluidEntrySchema(Schema):
     constants_source = fields.String(required=True, validate=validate.Length(min=10))
     lower_limit_note = fields.String(load_default=None, validate=validate.Length(min=10))
     notes = fields.List(fields.String(validate=validate.Length(min=10)), load_default=list)
-    vapor_pressure = fields.Nested(VaporPressureSchema, required=True)
-    liquid_density = fields.Nested(LiquidDensitySchema, load_default=None)
+    vapor_pressure = _FormTable(VAPOR_PRESSURE_FORMS, unknown=INCLUDE, required=True)
+    liquid_density = _FormTable(DENSITY_FORMS, unknown=RAISE, load_default=None)
 
     @validates("cas")
     def _cas(self, value: str, **_: Any) -> None:

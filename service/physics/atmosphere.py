@@ -24,7 +24,7 @@ from collections.abc import Callable
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.blocks import blockwise
+from service.physics.array_blocks import blockwise
 from service.physics.units import STANDARD_GRAVITY  # g0 [m/s2] of the 1976 standard, as the CGPM's
 
 GAS_CONSTANT = 8.31432

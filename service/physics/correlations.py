@@ -18,7 +18,7 @@ from functools import cache, cached_property
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.blocks import in_blocks
+from service.physics.array_blocks import in_blocks
 
 _MAX_ITERATIONS = 60
 _RELATIVE_TOLERANCE = 1e-14

@@ -9,8 +9,8 @@ import re
 import pytest
 
 from service import create_app
-from service.api.explorer import ASSETS, PAGE_POLICY
-from service.api.guard import SECURITY_HEADERS
+from service.api.paths.explorer import ASSETS, PAGE_POLICY
+from service.api.security import SECURITY_HEADERS
 
 STRICT = SECURITY_HEADERS["Content-Security-Policy"]
 MEDIA_TYPES = {

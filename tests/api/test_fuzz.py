@@ -186,7 +186,7 @@ def test_every_operation_is_fuzzed() -> None:
 @pytest.mark.parametrize(
     "text",
     [
-        'Traceback (most recent call last):\n  File "/app/service/api/operations.py", line 126, in parse',
+        'Traceback (most recent call last):\n  File "/app/service/api/computing_path.py", line 126, in parse',
         "/usr/lib/python3.11/site-packages/numpy/core/_methods.py",
         "werkzeug/3.1.3",
         "Python 3.11.7",

@@ -6,7 +6,8 @@ import logging
 import pytest
 
 from service import create_app
-from service.api.guard import JsonLogFormatter, json_depth_exceeds
+from service.api.observability import JsonLogFormatter
+from service.api.security import json_depth_exceeds
 from tests.conftest import ContractClient
 
 
@@ -108,7 +109,7 @@ def test_errors_hold_no_internals(client, app, monkeypatch) -> None:
     def explode(*_: object) -> None:
         raise RuntimeError("/site-packages/secret.py line 3")
 
-    monkeypatch.setattr("service.api.saturation.local_pressure", explode)
+    monkeypatch.setattr("service.fluids.questions.local_pressure", explode)
     r = client.client.get("/v1/boiling-point?pressure=100.5")  # a 500 is no documented answer
     assert r.status_code == 500 and r.mimetype == "application/problem+json"
     assert "site-packages" not in r.get_data(as_text=True) and "Traceback" not in r.get_data(as_text=True)

@@ -5,9 +5,9 @@ from typing import Any
 import pytest
 from marshmallow import EXCLUDE, Schema, ValidationError, fields, post_load
 
-from service.api.loader import FieldLoader
-from service.api.operations import OPERATIONS
-from service.api.quantities import Quantity
+from service.api.computing_path import OPERATIONS
+from service.api.field_loader import FieldLoader
+from service.api.quantity_fields import Quantity
 
 # Queries and bodies of every kind: valid, wrong types, unknown keys, NaN, bad units, nested fluids.
 SAMPLES: list[dict[str, Any]] = [

@@ -4,7 +4,7 @@ import numpy as np
 import pytest
 from marshmallow import ValidationError
 
-from service.api.quantities import parse_number, significant
+from service.api.numbers import parse_number, significant
 
 
 @pytest.mark.parametrize("text", ["0", "-0", "12", "-1.5", "1e3", "1E-3", "2.5e+10"])

@@ -6,7 +6,8 @@ import numpy as np
 import pytest
 
 from service import create_app
-from service.fluids.catalog import DATA_DIR, CatalogError, equation_from_entry, load_catalog, load_file
+from service.fluids.catalog import DATA_DIR, CatalogError, load_catalog, load_file
+from service.fluids.forms import equation_from_entry
 from service.fluids.schema import cas_check_digit_ok
 from service.physics import water
 

@@ -7,43 +7,34 @@ from typing import Any
 import numpy as np
 from flask import Blueprint
 
-from service.api import schemas
-from service.api.operations import Input, Inputs, Operation
-from service.api.quantities import DENSITY, format_value, quantity
-from service.api.rules import local_atmosphere
+from service.api import answer_schemas
+from service.api.computing_path import Input, Inputs, Operation
+from service.api.quantity_fields import DENSITY, format_value, quantity
+from service.fluids import questions
 from service.physics import atmosphere
 
 blueprint = Blueprint("atmosphere", __name__)
 
 
 def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
-    elevation = inputs.values["elevation"]
-    pressure = local_atmosphere(inputs)  # checks the elevation and the sea-level pressure
     sea_level = inputs.get("sea_level_pressure")
-    scale_to = atmosphere.SEA_LEVEL_PRESSURE if sea_level is None else sea_level
+    found = questions.standard_air(inputs.values["elevation"], sea_level)
     model = atmosphere.MODEL
-    warnings = []
-    if sea_level is None:
-        warnings.append(
-            "Standard-day values: real air pressure departs from them with the weather by a few "
-            "percent; send a station's sea_level_pressure to follow today's weather."
-        )
-    elif np.ndim(sea_level) == 0:
-        model += (
-            f", pressure scaled to a sea-level pressure of {format_value(float(sea_level), inputs.units['pressure'])}"
-        )
-    else:
+    if sea_level is not None and np.ndim(sea_level) == 0:
+        scaled_to = format_value(float(sea_level), inputs.units["pressure"])
+        model += f", pressure scaled to a sea-level pressure of {scaled_to}"
+    elif sea_level is not None:
         model += ", pressure scaled to the given sea-level pressures"
     return {
         "elevation": inputs.echo("elevation", inputs.units["length"]),
-        "geopotential_height": quantity(atmosphere.geopotential_height(elevation), inputs.units["length"]),
-        "pressure": quantity(pressure, inputs.units["pressure"]),
-        "temperature": quantity(atmosphere.temperature_at_elevation(elevation), inputs.units["temperature"]),
-        "density": quantity(atmosphere.density_at_elevation(elevation, scale_to), DENSITY),
+        "geopotential_height": quantity(found.geopotential_height, inputs.units["length"]),
+        "pressure": quantity(found.pressure, inputs.units["pressure"]),
+        "temperature": quantity(found.temperature, inputs.units["temperature"]),
+        "density": quantity(found.density, DENSITY),
         "model": model,
         "method": "hydrostatic equation in layers of constant lapse rate, with geopotential height",
         "source": atmosphere.SOURCE,
-        "warnings": warnings,
+        "warnings": found.warnings,
     }
 
 
@@ -62,7 +53,7 @@ Operation(
     },
     options={},
     dimensions=("pressure", "temperature", "length"),
-    response=schemas.AtmosphereAnswer,
+    response=answer_schemas.AtmosphereAnswer,
     compute=standard_atmosphere,
     example={"elevation": 1420.0},
     errors=(400, 422),

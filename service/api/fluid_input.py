@@ -6,11 +6,13 @@ from typing import Any
 
 from marshmallow import Schema, ValidationError, fields, validate, validates_schema
 
+from service.api.catalog_lookup import resolve_catalog_fluid
+from service.api.numbers import Number, printable
 from service.api.problems import invalid
-from service.api.quantities import Number, UnitField, printable
-from service.api.rules import resolve_catalog_fluid
-from service.fluids.catalog import Fluid
-from service.fluids.custom import fluid_from_boiling_point, fluid_from_equation
+from service.api.quantity_fields import UnitField
+from service.fluids.caller_defined import fluid_from_boiling_point, fluid_from_equation
+from service.fluids.fluid import Fluid
+from service.fluids.forms import VAPOR_PRESSURE_FORMS, Coefficient
 from service.physics.units import Unit
 
 _NAME = fields.String(
@@ -18,11 +20,17 @@ _NAME = fields.String(
     validate=[validate.Length(min=1, max=100), printable],
     metadata={"description": "A label for the answers."},
 )
-_FORM_KEYS = {
-    "antoine": {"A", "B", "C", "log_base"},
-    "wagner": {"coefficients", "exponents"},
-    "dippr101": {"A", "B", "C", "D", "E"},
+_FORMS = {key: form for key, form in VAPOR_PRESSURE_FORMS.items() if form.caller_definable}
+_ORDER = ("number", "choice", "list")
+_COEFFICIENTS = {
+    c.name: c
+    for c in sorted(
+        (c for form in _FORMS.values() for c in form.coefficients if c.in_request),
+        key=lambda c: (_ORDER.index(c.kind), c.name),
+    )
 }
+"""The coefficients a request may give: numbers, then choices, then lists, each by name (the document's order)."""
+_CRITICAL = ("critical_temperature", "critical_pressure")
 
 
 def _above_zero(value: float) -> None:
@@ -31,68 +39,84 @@ def _above_zero(value: float) -> None:
         raise ValidationError("Must be greater than 0.")
 
 
-class EquationFluid(Schema):
-    """A vapor-pressure equation as a handbook prints it."""
+def _users(name: str) -> str:
+    """The caller-definable forms whose tables give ``name``, as the document names them."""
+    return ", ".join(key for key, form in _FORMS.items() if any(c.name == name for c in form.coefficients))
 
-    name = _NAME
-    equation = fields.String(
-        required=True,
-        validate=validate.OneOf(sorted(_FORM_KEYS)),
-        metadata={
-            "description": "antoine: log_b(p) = A - B/(t + C) in `pressure_unit` and `temperature_unit`; "
-            "wagner: ln(p/pc) = (Tc/T) sum(a_i tau**e_i), tau = 1 - T/Tc, needs critical_temperature and "
-            "critical_pressure; dippr101: ln(p/Pa) = A + B/T + C ln T + D T**E with T in K."
-        },
-    )
-    A = Number()
-    B = Number()
-    C = Number()
-    D = Number()
-    E = Number()
-    log_base = fields.Raw(
-        metadata={
-            "description": 'antoine: the base of the logarithm, the number 10 or the string "e".',
-            # Two typed enums rather than one mixed enum, which client generators cannot type.
-            "oneOf": [{"type": "integer", "enum": [10]}, {"type": "string", "enum": ["e"]}],
-        }
-    )
-    coefficients = fields.List(Number(), validate=validate.Length(min=1, max=8))
-    exponents = fields.List(Number(validate=validate.Range(min=0.5, max=50)), validate=validate.Length(min=1, max=8))
-    critical_temperature = Number(metadata={"description": "In `temperature_unit`."})
-    critical_pressure = Number(metadata={"description": "In `pressure_unit`."})
-    t_min = Number(required=True, metadata={"description": "Lower end of the stated range."})
-    t_max = Number(required=True, metadata={"description": "Upper end of the stated range."})
-    temperature_unit = UnitField(
-        "temperature",
-        metadata={
-            "description": "Unit of t_min, t_max, critical_temperature and, for antoine, of t in the equation "
-            "(default: the request's temperature_unit)."
-        },
-    )
-    pressure_unit = UnitField(
-        "pressure",
-        metadata={
-            "description": "Unit of critical_pressure and, for antoine, of p in the equation "
-            "(default: the request's pressure_unit)."
-        },
-    )
+
+def _coefficient_metadata(coefficient: Coefficient) -> dict[str, Any]:
+    """The document's description of a coefficient, naming the forms that use it, and its choices as typed enums."""
+    metadata: dict[str, Any] = {}
+    if coefficient.description:
+        metadata["description"] = f"{_users(coefficient.name)}: {coefficient.description}"
+    if coefficient.choices:
+        # Two typed enums rather than one mixed enum, which client generators cannot type.
+        metadata["oneOf"] = [
+            {"type": "integer" if isinstance(c, int) else "string", "enum": [c]} for c in coefficient.choices
+        ]
+    return metadata
+
+
+def _form_text(key: str) -> str:
+    """How the document states a form: its equation and, where it needs it, the critical point."""
+    needs = f", needs {' and '.join(_CRITICAL)}" if _FORMS[key].needs_critical else ""
+    return f"{key}: {_FORMS[key].equation}{needs}"
+
+
+class _EquationChecks(Schema):
+    """What :data:`EquationFluid` checks across its fields, as the form it names declares."""
 
     @validates_schema
     def _form(self, data: dict[str, Any], **_: Any) -> None:
-        form = data["equation"]
-        given = set(data) & set().union(*_FORM_KEYS.values())
-        missing, extra = _FORM_KEYS[form] - given, given - _FORM_KEYS[form]
+        form = _FORMS[data["equation"]]
+        needed = {c.name for c in form.coefficients if c.in_request}
+        given = set(data) & set(_COEFFICIENTS)
+        missing, extra = needed - given, given - needed
         if missing:
-            raise ValidationError(f"{form} needs {', '.join(sorted(missing))}", "equation")
+            raise ValidationError(f"{form.key} needs {', '.join(sorted(missing))}", "equation")
         if extra:
-            raise ValidationError(f"{form} does not use {', '.join(sorted(extra))}", "equation")
-        if form == "antoine" and data["log_base"] not in (10, "e"):
-            raise ValidationError('must be 10 or "e"', "log_base")
-        if form == "wagner":
-            if len(data["coefficients"]) != len(data["exponents"]):
-                raise ValidationError("needs as many exponents as coefficients", "exponents")
-            if "critical_temperature" not in data or "critical_pressure" not in data:
-                raise ValidationError("wagner needs critical_temperature and critical_pressure", "equation")
+            raise ValidationError(f"{form.key} does not use {', '.join(sorted(extra))}", "equation")
+        for check in form.checks:
+            check(data)
+        critical = [k for k in _CRITICAL if k in data]
+        if form.needs_critical and len(critical) < len(_CRITICAL):
+            raise ValidationError(f"{form.key} needs {' and '.join(_CRITICAL)}", "equation")
+        if len(critical) == 1:
+            (absent,) = set(_CRITICAL) - set(critical)
+            raise ValidationError(f"{' and '.join(_CRITICAL)} go together", absent)
+
+
+EquationFluid = _EquationChecks.from_dict(
+    {
+        "name": _NAME,
+        "equation": fields.String(
+            required=True,
+            validate=validate.OneOf(sorted(_FORMS)),
+            metadata={"description": "; ".join(map(_form_text, _FORMS)) + "."},
+        ),
+        **{c.name: c.field(Number, metadata=_coefficient_metadata(c)) for c in _COEFFICIENTS.values()},
+        "critical_temperature": Number(metadata={"description": "In `temperature_unit`."}),
+        "critical_pressure": Number(metadata={"description": "In `pressure_unit`."}),
+        "t_min": Number(required=True, metadata={"description": "Lower end of the stated range."}),
+        "t_max": Number(required=True, metadata={"description": "Upper end of the stated range."}),
+        "temperature_unit": UnitField(
+            "temperature",
+            metadata={
+                "description": "Unit of t_min, t_max, critical_temperature and, "
+                f"for {_users('temperature_unit')}, of t in the equation (default: the request's temperature_unit)."
+            },
+        ),
+        "pressure_unit": UnitField(
+            "pressure",
+            metadata={
+                "description": f"Unit of critical_pressure and, for {_users('pressure_unit')}, of p in the equation "
+                "(default: the request's pressure_unit)."
+            },
+        ),
+    },
+    name="EquationFluid",
+)
+"""A vapor-pressure equation as a handbook prints it: a form of the registry that a caller may define."""
 
 
 class PointFluid(Schema):
@@ -151,22 +175,9 @@ def resolve_fluid(value: str | dict[str, Any], units: dict[str, Unit]) -> Fluid:
                 101_325.0 if pressure is None else pressure * p_unit.scale,
                 None if value.get("enthalpy_of_vaporization") is None else value["enthalpy_of_vaporization"] * 1e3,
             )
-        table = {
-            k: v
-            for k, v in value.items()
-            if k
-            not in {
-                "kind",
-                "name",
-                "equation",
-                "critical_temperature",
-                "critical_pressure",
-                "temperature_unit",
-                "pressure_unit",
-            }
-        }
-        table |= {
-            "form": value["equation"],
+        form = _FORMS[value["equation"]]
+        table = {c.name: value[c.name] for c in form.coefficients if c.in_request} | {
+            "form": form.key,
             "t_min": kelvin(value["t_min"]),
             "t_max": kelvin(value["t_max"]),
             "temperature_unit": t_unit.code,

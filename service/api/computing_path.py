@@ -20,22 +20,14 @@ from flask import Blueprint, Response, current_app, g, request
 from marshmallow import Schema, ValidationError, fields, missing, validate
 from numpy.typing import NDArray
 
-from service.api.formats import chosen_format, finish, render, respond
-from service.api.loader import FieldLoader
+from service.api.field_loader import FieldLoader
+from service.api.numbers import Number, Numbers, WholeNumber, all_finite, parse_number, printable
 from service.api.problems import Problem, invalid
-from service.api.quantities import (
-    Number,
-    Numbers,
-    Quantity,
-    QuantityField,
-    UnitField,
-    WholeNumber,
-    all_finite,
-    parse_number,
-    printable,
-    quantity,
-)
+from service.api.quantity_fields import Quantity, QuantityField, UnitField, quantity
+from service.api.refusals import problem
+from service.api.rendering import chosen_format, finish, render, respond
 from service.api.request_body import csv_table, json_object
+from service.fluids.limits import Refusal
 from service.physics.units import Dimension, Reference, Unit, default_unit, resolve_unit
 
 UNIT_DESCRIPTIONS = {
@@ -265,7 +257,11 @@ class Operation:
 
     def _answer(self, inputs: Inputs) -> dict[str, Any]:
         """The answer with its tag and rounding; refused with 422 if a number is not finite (JSON would show null)."""
-        answer = finish(self.compute(inputs), inputs.options.get("tag"), inputs.options.get("digits"), inputs.shape)
+        try:
+            computed = self.compute(inputs)
+        except Refusal as refusal:
+            raise problem(refusal, inputs.units) from None
+        answer = finish(computed, inputs.options.get("tag"), inputs.options.get("digits"), inputs.shape)
         for name, value in answer.items():
             if isinstance(value, dict) and "value" in value and not all_finite(value["value"]):
                 raise Problem(

@@ -1,7 +1,7 @@
 """Fluids a caller defines in a request: an equation as printed, or one known boiling point.
 
 SI in: temperature [K], pressure [Pa], enthalpy [J/mol]. Each function returns a
-:class:`~service.fluids.catalog.Fluid` that the computing paths use like a catalog fluid, or
+:class:`~service.fluids.fluid.Fluid` that the computing paths use like a catalog fluid, or
 raises ``ValueError`` saying what is wrong with the definition.
 """
 
@@ -13,7 +13,8 @@ from typing import Any
 
 import numpy as np
 
-from service.fluids.catalog import Fluid, equation_from_entry
+from service.fluids.fluid import Fluid
+from service.fluids.forms import VAPOR_PRESSURE_FORMS, equation_from_entry
 from service.physics.correlations import ExtendedAntoine
 
 GAS_CONSTANT = 8.314462618
@@ -58,16 +59,13 @@ def fluid_from_equation(name: str, vapor_pressure: Mapping[str, Any], critical: 
         equation=equation,
         t_min=t_min,
         t_max=t_max,
-        method=f"{_FORM_NAMES[vapor_pressure['form']]} with caller-supplied coefficients",
+        method=f"{VAPOR_PRESSURE_FORMS[vapor_pressure['form']].name} with caller-supplied coefficients",
         source="coefficients supplied in the request",
         critical_temperature=tc,
         critical_pressure=pc,
         notes=(_UNCHECKED,),
         tabulated=False,
     )
-
-
-_FORM_NAMES = {"antoine": "Antoine equation", "wagner": "Wagner equation", "dippr101": "DIPPR 101 equation"}
 
 
 def fluid_from_boiling_point(name: str, temperature: float, pressure: float, enthalpy: float | None) -> Fluid:

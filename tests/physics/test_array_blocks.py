@@ -5,16 +5,16 @@ from pathlib import Path
 
 import numpy as np
 
-from service.physics import blocks
+from service.physics import array_blocks
 
-PHYSICS = Path(blocks.__file__).parent
+PHYSICS = Path(array_blocks.__file__).parent
 
 
 def test_long_arrays_run_in_blocks_with_single_values_alongside() -> None:
-    x = np.linspace(0.0, 1.0, 3 * blocks.BLOCK + 5)
-    assert np.array_equal(blocks.in_blocks(np.add, x, 2.0), x + 2.0)
-    assert np.array_equal(blocks.in_blocks(np.add, x, np.full(x.shape, 2.0)), x + 2.0)
-    assert blocks.in_blocks(np.add, np.asarray(1.0), 2.0) == 3.0
+    x = np.linspace(0.0, 1.0, 3 * array_blocks.BLOCK + 5)
+    assert np.array_equal(array_blocks.in_blocks(np.add, x, 2.0), x + 2.0)
+    assert np.array_equal(array_blocks.in_blocks(np.add, x, np.full(x.shape, 2.0)), x + 2.0)
+    assert array_blocks.in_blocks(np.add, np.asarray(1.0), 2.0) == 3.0
 
 
 def test_no_python_power_operator_in_the_physics() -> None:

@@ -8,6 +8,7 @@ from __future__ import annotations
 
 from marshmallow import Schema, fields
 
+from service.api.problems import problem_type
 from service.physics.units import codes
 
 _NUMBERS = {"oneOf": [{"type": "number"}, {"type": "array", "items": {"type": "number"}}]}
@@ -244,7 +245,7 @@ class FluidList(Schema):
 class Problem(Schema):
     """RFC 9457 problem details."""
 
-    type = fields.String(required=True, metadata={"format": "uri"})
+    type = fields.String(required=True, metadata={"format": "uri", "examples": [problem_type(422)]})
     title = fields.String(required=True)
     status = fields.Integer(required=True)
     detail = fields.String(required=True)

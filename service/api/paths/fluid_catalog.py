@@ -7,11 +7,11 @@ from typing import Any
 from flask import Blueprint, Response
 from marshmallow import Schema, fields
 
-from service.api.formats import cacheable
-from service.api.operations import query_args
-from service.api.quantities import UnitField, difference, quantity
-from service.api.rules import catalog, resolve_catalog_fluid
-from service.fluids.catalog import Fluid
+from service.api.answer_cache import cacheable
+from service.api.catalog_lookup import catalog, resolve_catalog_fluid
+from service.api.computing_path import query_args
+from service.api.quantity_fields import UnitField, difference, quantity
+from service.fluids.fluid import Fluid
 from service.physics.units import Unit, default_unit
 
 blueprint = Blueprint("fluids", __name__)

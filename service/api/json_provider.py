@@ -5,7 +5,6 @@ from __future__ import annotations
 from typing import Any
 
 import orjson
-from flask import Response
 from flask.json.provider import JSONProvider
 
 _OPTIONS = orjson.OPT_SERIALIZE_NUMPY
@@ -24,6 +23,3 @@ class OrjsonProvider(JSONProvider):
 
     def loads(self, s: str | bytes, **kwargs: Any) -> Any:
         return orjson.loads(s)
-
-    def response(self, *args: Any, **kwargs: Any) -> Response:
-        return self._app.response_class(encode(self._prepare_response_obj(args, kwargs)), mimetype="application/json")
