@@ -15,7 +15,7 @@ import numpy as np
 
 from service.fluids.fluid import Fluid
 from service.fluids.forms import VAPOR_PRESSURE_FORMS, equation_from_entry
-from service.physics.correlations import ExtendedAntoine
+from service.physics.vapor_pressure import ExtendedAntoine
 
 GAS_CONSTANT = 8.314462618
 """R [J/(mol K)], CODATA 2018 (exact since the 2019 SI)."""

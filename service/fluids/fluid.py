@@ -16,8 +16,9 @@ import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.limits import Limit, Limits
-from service.physics.correlations import InverseTable, VaporPressureEquation, inverse_table
+from service.physics.inverse_table import InverseTable, inverse_table
 from service.physics.units import ATMOSPHERE
+from service.physics.vapor_pressure import VaporPressureEquation
 
 
 @dataclass(frozen=True)

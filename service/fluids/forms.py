@@ -7,7 +7,7 @@ or :data:`DENSITY_FORMS`, with its builder and its test (``tests/fluids/test_for
 
 Tables are SI where the form says nothing else: temperature [K], pressure [Pa], molar mass
 [kg/mol], density [kg/m3]. Sources: each builder's physics class in
-:mod:`service.physics.correlations` and :mod:`service.physics.water`.
+:mod:`service.physics.vapor_pressure`, :mod:`service.physics.liquid_density` and :mod:`service.physics.water`.
 """
 
 from __future__ import annotations
@@ -24,8 +24,9 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.fluid import LiquidDensity
 from service.physics import water
-from service.physics.correlations import Dippr105, ExtendedAntoine, VaporPressureEquation, Wagner
+from service.physics.liquid_density import Dippr105
 from service.physics.units import Dimension, codes, resolve_unit
+from service.physics.vapor_pressure import ExtendedAntoine, VaporPressureEquation, Wagner
 
 _POSITIVE = validate.Range(min=0.0, min_inclusive=False)
 

@@ -5,8 +5,8 @@ Substance*, St. Petersburg, 1992, eqs. (1) and (2); W. Wagner and A. Pruss, J. P
 Ref. Data 22, 783 (1993). The inverse starts from the backward equation of IAPWS-IF97 region 4
 (IAPWS, *Revised Release on the IAPWS Industrial Formulation 1997*, 2007, eq. (31)), which
 agrees with eq. (1) to about 0.01 K, and polishes it with the safeguarded Newton iteration
-of :mod:`service.physics.correlations`; requests are answered from an
-:class:`~service.physics.correlations.InverseTable` of those exact inverses.
+of :mod:`service.physics.vapor_pressure`; requests are answered from an
+:class:`~service.physics.inverse_table.InverseTable` of those exact inverses.
 
 SI throughout: temperature [K], pressure [Pa].
 
@@ -21,7 +21,8 @@ from __future__ import annotations
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.physics.correlations import Wagner, inverse_table
+from service.physics.inverse_table import inverse_table
+from service.physics.vapor_pressure import Wagner
 
 CRITICAL_TEMPERATURE = 647.096
 """Tc [K], IAPWS 1992."""

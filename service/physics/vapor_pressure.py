@@ -1,5 +1,4 @@
-"""Correlation forms: vapor pressure (forward p(T), slope dp/dT, inverse T(p)) and
-saturated-liquid density.
+"""Vapor-pressure equations: forward p(T), slope dp/dT, and the inverse T(p).
 
 Each form is implemented once, vectorised over numpy arrays, in SI: temperature [K],
 pressure [Pa]. The inverse is a safeguarded Newton iteration on x = 1/T, where ln p is
@@ -13,7 +12,7 @@ import math
 from abc import ABC, abstractmethod
 from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
-from functools import cache, cached_property
+from functools import cached_property
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
@@ -89,52 +88,6 @@ class VaporPressureEquation(ABC):
             if not active.any():
                 break
         return np.clip(1 / x, low, high)
-
-
-class InverseTable:
-    """T(p) of an equation between two temperatures, as a piecewise-cubic Hermite table.
-
-    The nodes are exact inverses (Newton, :meth:`VaporPressureEquation.temperature`) with
-    exact slopes, spaced evenly in s = sqrt(ln p_high - ln p). In s the inverse stays smooth
-    up to a Wagner equation's critical end, where T(ln p) itself has a square-root cusp, so
-    4096 intervals reproduce the Newton answers to about 1e-10 K. One log, one sqrt and a
-    cubic per point: the fast path for every saturation-temperature request.
-    """
-
-    def __init__(self, equation: VaporPressureEquation, low: float, high: float, intervals: int = 4096) -> None:
-        self.low, self.high = low, high
-        ln_lo, self._ln_high = (float(v) for v in equation.ln_pressure(np.array([low, high])))
-        self._step = math.sqrt(self._ln_high - ln_lo) / intervals
-        self._end = float(intervals)
-        s = np.arange(intervals + 1) * self._step
-        ln_p = self._ln_high - s * s
-        nodes = equation.temperature(np.exp(ln_p), low, high)
-        nodes[0], nodes[-1] = high, low
-        _, d_ln_p = equation.ln_pressure_and_slope(nodes)
-        tangent = -2.0 * s / d_ln_p * self._step  # dT/ds, per interval
-        t0, t1, m0, m1 = nodes[:-1], nodes[1:], tangent[:-1], tangent[1:]
-        # One more interval past the last node, constant at `low`: with s clamped to the table's end,
-        # its index and fraction are valid there too, and no other clamp is needed.
-        c = (t0, m0, 3 * (t1 - t0) - 2 * m0 - m1, 2 * (t0 - t1) + m0 + m1)
-        self._c = tuple(np.append(part, end) for part, end in zip(c, (low, 0.0, 0.0, 0.0), strict=True))
-
-    def __call__(self, pressure: ArrayLike) -> NDArray[np.float64]:
-        """Saturation temperature [K] at ``pressure`` [Pa]; pressures beyond the ends give the ends."""
-        return in_blocks(self._evaluate, pressure)
-
-    def _evaluate(self, pressure: NDArray) -> NDArray:
-        # s in intervals from the high end, clamped to the table: no index or fraction falls outside it.
-        s = np.minimum(np.sqrt(np.maximum(self._ln_high - np.log(pressure), 0.0)) / self._step, self._end)
-        index = s.astype(np.intp)
-        t = s - index
-        c0, c1, c2, c3 = (c.take(index, mode="clip") for c in self._c)  # clip: a NaN's index is garbage
-        return ((c3 * t + c2) * t + c1) * t + c0
-
-
-@cache
-def inverse_table(equation: VaporPressureEquation, low: float, high: float) -> InverseTable:
-    """The one :class:`InverseTable` of ``equation`` between ``low`` and ``high`` [K], built on first use."""
-    return InverseTable(equation, low, high)
 
 
 @dataclass(frozen=True)
@@ -253,7 +206,7 @@ class ExtendedAntoine(VaporPressureEquation):
     With D = E = F = 0 it is the three-parameter Antoine equation (C. Antoine, C. R.
     Acad. Sci. 107, 681, 1888); with C = D = 0 it is the DIPPR 101 equation as printed in
     *Perry's Chemical Engineers' Handbook*, 8th ed., Table 2-8. Check values: see
-    ``tests/physics/test_correlations.py``.
+    ``tests/physics/test_vapor_pressure.py``.
     """
 
     a: float
@@ -287,30 +240,3 @@ class ExtendedAntoine(VaporPressureEquation):
         if self.f:
             d_ln_p = d_ln_p + self.f * self.g * np.power(temperature, self.g - 1.0)
         return ln_p, d_ln_p
-
-
-@dataclass(frozen=True)
-class Dippr105:
-    """DIPPR 105 saturated-liquid density: rho = A / B**(1 + (1 - T/C)**D) [mol/m3].
-
-    *Perry's Chemical Engineers' Handbook*, 8th ed., Table 2-32 (there with A in mol/dm3).
-    With A = pc/(R Tc), B = Z_RA, C = Tc and D = 2/7 it is the Rackett equation as modified
-    by Spencer and Danner (J. Chem. Eng. Data 17, 236, 1972).
-
-    Methanol with the Perry's 8th ed. coefficients; the CRC Handbook gives 786.6 kg/m3 at
-    25 degC (recalled from memory), which the correlation meets within 0.5 %:
-
-    >>> methanol = Dippr105(a=2326.7, b=0.27073, c=512.5, d=0.24713)
-    >>> round(float(methanol.molar_density(298.15)) * 0.03204216)
-    790
-    """
-
-    a: float
-    b: float
-    c: float
-    d: float
-
-    def molar_density(self, temperature: ArrayLike) -> NDArray[np.float64]:
-        """Saturated-liquid molar density [mol/m3] at ``temperature`` [K], below C."""
-        tau = 1.0 - np.asarray(temperature, dtype=float) / self.c
-        return self.a / np.power(self.b, 1.0 + np.power(tau, self.d))

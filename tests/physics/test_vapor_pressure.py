@@ -1,4 +1,4 @@
-"""The equation forms, their slopes and their inverse."""
+"""The vapor-pressure forms, their slopes and their Newton inverse."""
 
 import math
 
@@ -6,7 +6,7 @@ import numpy as np
 import pytest
 
 from service.physics import water
-from service.physics.correlations import Dippr105, ExtendedAntoine, InverseTable, Wagner
+from service.physics.vapor_pressure import ExtendedAntoine, Wagner
 
 # Antoine constants of water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C):
 # A = 8.07131, B = 1730.63, C = 233.426 (the classic handbook set, e.g. Lange's Handbook
@@ -59,17 +59,6 @@ def test_inverse_clamps_to_the_bracket() -> None:
     np.testing.assert_allclose(out, [280.0, 370.0])
 
 
-@pytest.mark.parametrize("equation", [WATER_ANTOINE, water.SATURATION], ids=["antoine", "wagner"])
-def test_inverse_table_reproduces_newton(equation) -> None:
-    low, high = 274.0, 646.0
-    table = InverseTable(equation, low, high)
-    p = np.geomspace(float(equation.pressure(low)), float(equation.pressure(high)), 200_001)
-    answers = table(p)
-    assert np.max(np.abs(answers - equation.temperature(p, low, high))) < 1e-9
-    assert np.all(np.diff(answers) >= 0) and answers.min() >= low and answers.max() <= high  # monotone, in range
-    assert table(np.array([1e-9, 1e12])).tolist() == [low, high]
-
-
 def test_wagner_horner_matches_the_plain_sum() -> None:
     eq = water.SATURATION
     t = np.linspace(273.16, 647.0, 1001)
@@ -103,13 +92,10 @@ def test_single_values_equal_array_elements_exactly() -> None:
 
 
 def test_every_form_gives_single_values_the_floats_of_an_array() -> None:
-    # Forms whose powers are not square roots, and densities: np.power on a scalar runs numpy's
-    # loops, where Python's ** on a numpy scalar would call the C library's pow.
+    # Forms whose powers are not square roots: np.power on a scalar runs numpy's loops, where
+    # Python's ** on a numpy scalar would call the C library's pow.
     odd_wagner = Wagner(647.096, 22.064e6, (-7.86, 1.84, -11.79, 22.68), (1.0, 1.7, 3.3, 3.9))
     dippr101 = ExtendedAntoine(a=73.649, b=-7258.2, e=-7.3037, f=4.1653e-6, g=2.0)
-    methanol = Dippr105(a=2326.7, b=0.27073, c=512.5, d=0.24713)
     t = np.random.default_rng(101).uniform(290.0, 500.0, 2000)
     for function in (odd_wagner.pressure, odd_wagner.slope, dippr101.pressure, dippr101.slope, WATER_ANTOINE.slope):
         assert [function(float(v)) for v in t] == function(t).tolist(), function
-    assert [methanol.molar_density(float(v)) for v in t] == methanol.molar_density(t).tolist()
-    assert [water.saturated_liquid_density(float(v)) for v in t] == water.saturated_liquid_density(t).tolist()
