@@ -25,6 +25,8 @@ from prometheus_client import (
     multiprocess,
 )
 
+from service.api.openapi import document_get
+
 _REQUEST_ID = re.compile(r"^[A-Za-z0-9._:-]{1,128}$")
 _METHODS = frozenset({"GET", "HEAD", "POST", "OPTIONS", "PUT", "PATCH", "DELETE"})
 """Methods counted by name in the metrics; any other counts as ``other``, so labels stay few."""
@@ -132,3 +134,11 @@ def install(app: Flask) -> None:
 def multiprocess_dir() -> str | None:
     """The directory where gunicorn's workers share their metrics (docker/gunicorn.conf.py sets it)."""
     return os.environ.get("PROMETHEUS_MULTIPROC_DIR")
+
+
+document_get(
+    "/metrics",
+    "metrics",
+    "Prometheus metrics: requests by path and status, latency, points computed (all workers)",
+    {"200": {"description": "Prometheus text format.", "content": {"text/plain": {"schema": {"type": "string"}}}}},
+)

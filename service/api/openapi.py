@@ -8,6 +8,7 @@ Example answers are computed by the service itself from the example requests.
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 from typing import Any
 
 import numpy as np
@@ -19,7 +20,6 @@ from flask import current_app
 from service.api import answer_schemas
 from service.api.computing_path import OPERATIONS, Operation
 from service.api.fluid_input import EquationFluid, PointFluid
-from service.api.paths.fluid_catalog import FluidQuery, FluidSearchQuery
 from service.api.problems import PROBLEM_TYPE, TITLES
 from service.api.quantity_fields import UNIT_SCHEMAS, QuantityField, UnitField, unit_schema, unit_spellings_schema
 from service.api.rendering import as_csv, as_text, shown
@@ -113,7 +113,7 @@ _PROBLEM_TEXT = {
 }
 
 
-def _problem_responses(statuses: tuple[int, ...]) -> dict[str, Any]:
+def problem_responses(statuses: tuple[int, ...]) -> dict[str, Any]:
     return {
         str(s): {
             "description": TITLES[s],
@@ -131,9 +131,9 @@ def _array_example(operation: Operation) -> dict[str, Any]:
     return body
 
 
-_GUARDED = (401, 414)
+GUARDED = (401, 414)
 """Any /v1 path: 401 when an API key is configured and missing, 414 for an over-long query string."""
-_NOT_MODIFIED = {"description": "Not modified: the answer has the ETag sent in If-None-Match."}
+NOT_MODIFIED = {"description": "Not modified: the answer has the ETag sent in If-None-Match."}
 _CSV_BODY = (
     "A header row naming input quantities, each optionally with its unit (`gauge_pressure [kPa]`), then one "
     "row of numbers per point. Options and single values go in the query string."
@@ -171,8 +171,8 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                             "text/plain": {"schema": text, "example": as_text(get_answer)},
                         },
                     },
-                    "304": _NOT_MODIFIED,
-                    **_problem_responses((*operation.errors, *_GUARDED)),
+                    "304": NOT_MODIFIED,
+                    **problem_responses((*operation.errors, *GUARDED)),
                 },
             },
             "post": {
@@ -200,14 +200,41 @@ def _computing_paths(spec: APISpec, operation: Operation) -> None:
                             "text/csv": {"schema": text, "example": as_csv(post_answer, post_inputs.shape)},
                         },
                     },
-                    **_problem_responses((*operation.errors, *_GUARDED, 408, 413, 415)),
+                    **problem_responses((*operation.errors, *GUARDED, 408, 413, 415)),
                 },
             },
         },
     )
 
 
-def _json(schema: Any, description: str = "The answer.") -> dict[str, Any]:
+@dataclass(frozen=True)
+class PlainPath:
+    """A GET path that is not a computing path, as the document lists it (``{name}`` for a path parameter)."""
+
+    path: str
+    operation_id: str
+    summary: str
+    responses: dict[str, Any]
+    parameters: list[dict[str, Any]] | None = None
+
+
+PLAIN_PATHS: list[PlainPath] = []
+"""Every plain GET path, listed by the module that answers it with :func:`document_get`."""
+
+
+def document_get(
+    path: str,
+    operation_id: str,
+    summary: str,
+    responses: dict[str, Any],
+    parameters: list[dict[str, Any]] | None = None,
+) -> None:
+    """List a plain GET path in the document: the module that answers a path documents it beside the view."""
+    PLAIN_PATHS.append(PlainPath(path, operation_id, summary, responses, parameters))
+
+
+def json_answer(schema: Any, description: str = "The answer.") -> dict[str, Any]:
+    """A 200 response whose JSON body follows ``schema``."""
     return {"description": description, "content": {"application/json": {"schema": schema}}}
 
 
@@ -243,81 +270,18 @@ def build_document() -> dict[str, Any]:
     spec.components.schema("PointFluid", schema=PointFluid)
     for operation in OPERATIONS:
         _computing_paths(spec, operation)
-    fluid_name = {
-        "in": "path",
-        "name": "name",
-        "required": True,
-        "schema": {"type": "string"},
-        "description": "Catalog id, CAS registry number or alias.",
-        "example": "water",
-    }
-    text = {"schema": {"type": "string"}}
-    for path, operation_id, summary, parameters, responses in (
-        (
-            "/v1/fluids",
-            "listFluids",
-            "List or search the fluid catalog",
-            [{"in": "query", "schema": FluidSearchQuery}],
-            {"200": _json(answer_schemas.FluidList), "304": _NOT_MODIFIED, **_problem_responses((400, *_GUARDED))},
-        ),
-        (
-            "/v1/fluids/{name}",
-            "getFluid",
-            "One fluid: identity, fixed points, equation and source",
-            [fluid_name, {"in": "query", "schema": FluidQuery}],
-            {
-                "200": _json(answer_schemas.FluidDetail),
-                "304": _NOT_MODIFIED,
-                **_problem_responses((400, 404, *_GUARDED)),
-            },
-        ),
-        ("/", "index", "The paths this service answers", None, {"200": _json(answer_schemas.Index)}),
-        ("/healthz", "healthz", "Liveness: the process answers", None, {"200": _json(answer_schemas.Health)}),
-        (
-            "/readyz",
-            "readyz",
-            "Readiness: the catalog is loaded",
-            None,
-            {"200": _json(answer_schemas.Health), **_problem_responses((503,))},
-        ),
-        (
-            "/metrics",
-            "metrics",
-            "Prometheus metrics: requests by path and status, latency, points computed (all workers)",
-            None,
-            {"200": {"description": "Prometheus text format.", "content": {"text/plain": text}}},
-        ),
-        (
-            "/openapi.json",
-            "openapi",
-            "This document, as JSON",
-            None,
-            {
-                "200": {
-                    "description": "The OpenAPI document.",
-                    "content": {"application/json": {"schema": {"type": "object"}}},
-                }
-            },
-        ),
-        (
-            "/docs",
-            "explorer",
-            "The API explorer: this document as an interactive page, served with its assets by this service",
-            None,
-            {"200": {"description": "An HTML page (Swagger UI) for a web browser.", "content": {"text/html": text}}},
-        ),
-    ):
-        catalog_path = path.startswith("/v1/")
+    for path in PLAIN_PATHS:
+        catalog_path = path.path.startswith("/v1/")
         operation: dict[str, Any] = {
             "tags": ["fluids" if catalog_path else "service"],
-            "operationId": operation_id,
-            "summary": summary,
+            "operationId": path.operation_id,
+            "summary": path.summary,
         }
-        if parameters:
-            operation["parameters"] = parameters
+        if path.parameters:
+            operation["parameters"] = path.parameters
         if not catalog_path:
             operation["security"] = []  # probes, scraper and documentation need no key
-        spec.path(path=path, operations={"get": {**operation, "responses": responses}})
+        spec.path(path=path.path, operations={"get": {**operation, "responses": path.responses}})
     return spec.to_dict()
 
 

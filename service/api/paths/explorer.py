@@ -20,6 +20,7 @@ from pathlib import Path
 import flask_swagger_ui
 from flask import Blueprint, Response, send_file
 
+from service.api.openapi import document_get
 from service.api.problems import Problem
 
 blueprint = Blueprint("explorer", __name__)
@@ -82,3 +83,16 @@ def asset(name: str) -> Response:
     response = send_file(path, mimetype=mimetype, max_age=_A_YEAR, conditional=True, etag=True)
     response.cache_control.immutable = True
     return response
+
+
+document_get(
+    "/docs",
+    "explorer",
+    "The API explorer: this document as an interactive page, served with its assets by this service",
+    {
+        "200": {
+            "description": "An HTML page (Swagger UI) for a web browser.",
+            "content": {"text/html": {"schema": {"type": "string"}}},
+        }
+    },
+)

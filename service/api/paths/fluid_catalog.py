@@ -7,9 +7,11 @@ from typing import Any
 from flask import Blueprint, Response
 from marshmallow import Schema, fields
 
+from service.api import answer_schemas
 from service.api.answer_cache import cacheable
 from service.api.catalog_lookup import catalog, resolve_catalog_fluid
 from service.api.computing_path import query_args
+from service.api.openapi import GUARDED, NOT_MODIFIED, document_get, json_answer, problem_responses
 from service.api.quantity_fields import UnitField, difference, quantity
 from service.fluids.fluid import Fluid
 from service.physics.units import Unit, default_unit
@@ -96,3 +98,33 @@ def list_fluids() -> Response:
 def fluid_detail(name: str) -> Response:
     loaded = FluidQuery().load(query_args())
     return cacheable(detail(resolve_catalog_fluid(name), *_units(loaded)))
+
+
+document_get(
+    "/v1/fluids",
+    "listFluids",
+    "List or search the fluid catalog",
+    {"200": json_answer(answer_schemas.FluidList), "304": NOT_MODIFIED, **problem_responses((400, *GUARDED))},
+    [{"in": "query", "schema": FluidSearchQuery}],
+)
+document_get(
+    "/v1/fluids/{name}",
+    "getFluid",
+    "One fluid: identity, fixed points, equation and source",
+    {
+        "200": json_answer(answer_schemas.FluidDetail),
+        "304": NOT_MODIFIED,
+        **problem_responses((400, 404, *GUARDED)),
+    },
+    [
+        {
+            "in": "path",
+            "name": "name",
+            "required": True,
+            "schema": {"type": "string"},
+            "description": "Catalog id, CAS registry number or alias.",
+            "example": "water",
+        },
+        {"in": "query", "schema": FluidQuery},
+    ],
+)

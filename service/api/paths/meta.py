@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from flask import Blueprint, Response, current_app
 
+from service.api import answer_schemas
+from service.api.openapi import document_get, json_answer, problem_responses
 from service.api.problems import Problem
 from service.config import VERSION
 
@@ -39,3 +41,19 @@ def readyz() -> Response:
 @blueprint.get("/openapi.json")
 def openapi_document() -> Response:
     return current_app.json.response(current_app.extensions["openapi"])
+
+
+document_get("/", "index", "The paths this service answers", {"200": json_answer(answer_schemas.Index)})
+document_get("/healthz", "healthz", "Liveness: the process answers", {"200": json_answer(answer_schemas.Health)})
+document_get(
+    "/readyz",
+    "readyz",
+    "Readiness: the catalog is loaded",
+    {"200": json_answer(answer_schemas.Health), **problem_responses((503,))},
+)
+document_get(
+    "/openapi.json",
+    "openapi",
+    "This document, as JSON",
+    {"200": {"description": "The OpenAPI document.", "content": {"application/json": {"schema": {"type": "object"}}}}},
+)
