@@ -18,9 +18,6 @@ scalars for single values.
 
 from __future__ import annotations
 
-import bisect
-from collections.abc import Callable
-
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
@@ -62,31 +59,7 @@ def _layer_bases() -> tuple[NDArray, NDArray]:
 
 
 _BASE_T, _BASE_P = _layer_bases()
-_LINEAR = _LAPSE != 0.0
-_SAFE_LAPSE = np.where(_LINEAR, _LAPSE, 1.0)
-_ALPHA = _BASE_T - _LAPSE * _BASE_HEIGHT  # T_M = ALPHA + L H, eq. (23)
-# Eqs. (33a) and (33b) in one form per layer: ln(P/Pb) = B ln(T_M/Tb) + (C H + D), with
-# T_M/Tb = ALPHA/Tb + (L/Tb) H. Where the lapse rate L is not zero, B = -k/L and C = D = 0;
-# where it is, B = 0, C = -k/Tb and D = -C Hb. A term with a zero factor adds an exact zero,
-# so a block within one layer may leave it out and still give the same floats.
-_B = np.where(_LINEAR, -_K / _SAFE_LAPSE, 0.0)
-_C = np.where(_LINEAR, 0.0, -_K / _BASE_T)
-_D = -_C * _BASE_HEIGHT
-_RELATIVE_ALPHA = _ALPHA / _BASE_T
-_RELATIVE_LAPSE = _LAPSE / _BASE_T
-# The inverse per layer: H = Hb + U expm1(V ln(P/Pb)) + W ln(P/Pb), with U = Tb/L, V = -L/k
-# and W = 0 where L is not zero, and U = V = 0, W = -Tb/k where it is.
-_U = np.where(_LINEAR, _BASE_T / _SAFE_LAPSE, 0.0)
-_V = np.where(_LINEAR, -_SAFE_LAPSE / _K, 0.0)
-_W = np.where(_LINEAR, 0.0, -_BASE_T / _K)
-_INVERSE_BASE_P = 1.0 / _BASE_P
-_UPPER_HEIGHTS = _BASE_HEIGHT[1:].tolist()  # [m'], ascending
-# Every layer base is a whole kilometre, so the layer of H follows from floor(H / 1 km) alone
-# (the division rounds correctly, so no H below a base reaches its kilometre): one lookup per
-# point, in a table of the geopotential kilometres from -6 (below -5 km) to 85 (above the top).
-_KM_OFFSET = 6
-_LAYER_OF_KM = np.array([bisect.bisect_right(_UPPER_HEIGHTS, 1e3 * km) for km in range(-_KM_OFFSET, 86)])
-_UPPER_PRESSURES = _BASE_P[:0:-1].tolist()  # [Pa], ascending
+_UPPER_PRESSURES = _BASE_P[:0:-1]  # [Pa], ascending
 # Table 8: M/M0 against geometric elevation, 80 to 86 km; 1 below 80 km.
 _RATIO_Z = np.arange(80_000.0, 86_001.0, 500.0)
 _RATIO_M = np.array(
@@ -126,33 +99,9 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
     return EARTH_RADIUS * h / (EARTH_RADIUS - h)
 
 
-def _common_layer(values: NDArray | float, layer_of: Callable[[float], int]) -> int | None:
-    """The one layer that holds a single value, or every value of an array (by its ends); None otherwise.
-
-    ``layer_of`` places one value; it must be monotone, so that the ends place all between them.
-    """
-    if isinstance(values, float):
-        return layer_of(values)
-    if values.size:
-        low, high = layer_of(values.min()), layer_of(values.max())
-        if low == high:
-            return low
-    return None
-
-
-def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | int:
-    """Index of the layer holding each geopotential height: how many upper bases lie at or below it.
-
-    When every height lies in one layer (a single value, a site's elevations, a
-    troposphere-only array) the answer is that layer's index alone, and the formulas use its
-    constants without a lookup per point.
-    """
-    layer = _common_layer(h, lambda v: bisect.bisect_right(_UPPER_HEIGHTS, v))
-    if layer is not None:
-        return layer
-    km = np.floor(h / 1e3).astype(np.intp)
-    km += _KM_OFFSET
-    return _LAYER_OF_KM.take(km, mode="clip")  # beyond the table: the bottom or top layer, as bisect says
+def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | np.intp:
+    """Index of the layer holding each geopotential height [m']: how many upper bases lie at or below it."""
+    return np.searchsorted(_BASE_HEIGHT[1:], h, side="right")
 
 
 @blockwise
@@ -169,8 +118,9 @@ def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
 
 
 def _molecular_temperature(h: NDArray) -> NDArray:
+    """Molecular-scale temperature T_M [K] at geopotential height [m'], eq. (23)."""
     i = _layer_of_height(h)
-    return _ALPHA.take(i) + _LAPSE.take(i) * h
+    return _BASE_T[i] + _LAPSE[i] * (h - _BASE_HEIGHT[i])
 
 
 @blockwise
@@ -188,14 +138,7 @@ def pressure_at_elevation(
     """
     h = geopotential_height(elevation)
     i = _layer_of_height(h)
-    if isinstance(i, int):  # one layer: only its nonzero term
-        ln_ratio = _B[i] * np.log(_RELATIVE_ALPHA[i] + _RELATIVE_LAPSE[i] * h) if _LINEAR[i] else _C[i] * h + _D[i]
-    else:
-        linear = _B.take(i) * np.log(_RELATIVE_ALPHA.take(i) + _RELATIVE_LAPSE.take(i) * h)
-        ln_ratio = linear + (_C.take(i) * h + _D.take(i))
-    pressure = _BASE_P.take(i) * np.exp(ln_ratio)
-    if isinstance(sea_level_pressure, float) and sea_level_pressure == SEA_LEVEL_PRESSURE:
-        return pressure  # a standard day: the scale is exactly 1, and multiplying by it changes nothing
+    pressure = _BASE_P[i] * np.exp(_layer_ln_pressure_drop(_LAPSE[i], _BASE_T[i], h - _BASE_HEIGHT[i]))
     return pressure * (sea_level_pressure / SEA_LEVEL_PRESSURE)
 
 
@@ -212,18 +155,9 @@ def density_at_elevation(
     return pressure_at_elevation(elevation, sea_level_pressure) * MOLAR_MASS_AIR / (GAS_CONSTANT * t_m)
 
 
-def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | int:
-    """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure.
-
-    One index when all share a layer, as in :func:`_layer_of_height`.
-    """
-    layer = _common_layer(p, lambda v: len(_UPPER_PRESSURES) - bisect.bisect_left(_UPPER_PRESSURES, v))
-    if layer is not None:
-        return layer
-    index = np.zeros(p.shape, dtype=np.intp)
-    for base in _UPPER_PRESSURES:
-        index += p <= base
-    return index
+def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | np.intp:
+    """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure."""
+    return len(_UPPER_PRESSURES) - np.searchsorted(_UPPER_PRESSURES, p, side="left")
 
 
 @blockwise
@@ -240,12 +174,12 @@ def elevation_at_pressure(
     """
     p = pressure * (SEA_LEVEL_PRESSURE / sea_level_pressure)
     i = _layer_of_pressure(p)
-    ln_ratio = np.log(p * _INVERSE_BASE_P.take(i))
-    if isinstance(i, int):  # one layer: only its nonzero term
-        rise = np.expm1(ln_ratio * _V[i]) * _U[i] if _LINEAR[i] else ln_ratio * _W[i]
-    else:
-        rise = np.expm1(ln_ratio * _V.take(i)) * _U.take(i) + ln_ratio * _W.take(i)
-    return geometric_elevation(_BASE_HEIGHT.take(i) + rise)
+    ln_ratio = np.log(p / _BASE_P[i])
+    lapse, base_t = _LAPSE[i], _BASE_T[i]
+    linear = lapse != 0.0
+    safe_lapse = np.where(linear, lapse, 1.0)
+    rise = np.where(linear, base_t / safe_lapse * np.expm1(-safe_lapse / _K * ln_ratio), -base_t / _K * ln_ratio)
+    return geometric_elevation(_BASE_HEIGHT[i] + rise)
 
 
 PRESSURE_AT_MIN_ELEVATION = float(pressure_at_elevation(MIN_ELEVATION))
