@@ -1,1 +1,1 @@
-"""The built-in fluid catalog: data files with a source per entry, and their loader."""
+"""The domain: what can boil, its limits and cautions as data, and the questions the paths ask of it."""
