@@ -1,4 +1,5 @@
-"""Property-based fuzzing of the whole API from its OpenAPI document (schemathesis).
+"""Property-based fuzzing of the whole API from its OpenAPI document (schemathesis): a contract
+suite over every path, GET and POST, not the tests of one module.
 
 Every operation, GET and POST, is called in-process through the WSGI app with data generated
 from the served document: valid inputs (positive) and inputs that break the document (negative).

@@ -1,8 +1,10 @@
-"""POST bodies read strictly: JSON objects and CSV tables, with refusals that say what and where."""
+"""POST bodies read strictly (``service.api.request_body``): JSON objects and CSV tables, with refusals
+that say what and where."""
 
 import pytest
 
-from tests.api.test_errors import problem
+from tests.api.test_problems import problem
+from tests.conftest import csv_answer
 
 BOM = b"\xef\xbb\xbf"
 
@@ -67,3 +69,55 @@ def test_quoted_csv_cells_and_blank_rows(client) -> None:
     assert quoted.status_code == 200 and len(quoted.get_json()["boiling_point"]["value"]) == 2
     blank = problem(client.post("/v1/boiling-point", data=b"pressure\n100\n\n200\n", content_type="text/csv"), 400)
     assert "row 3 of the file (the header is row 1) is empty" in blank["detail"]
+
+
+def test_post_body_must_be_a_json_object(client) -> None:
+    problem(client.post("/v1/boiling-point", data="pressure=100", content_type="text/plain"), 415)
+    problem(client.post("/v1/boiling-point", data="{not json", content_type="application/json"), 400)
+    problem(client.post("/v1/boiling-point", data='{"pressure": NaN}', content_type="application/json"), 400)
+    problem(client.post("/v1/boiling-point", json=[100]), 400)
+
+
+def test_csv_round_trip(client) -> None:
+    text = "gauge_pressure [bar]\n-0.6\n0\n9.5\n"
+    r = client.post("/v1/boiling-point?elevation=1420&format=csv", data=text, content_type="text/csv")
+    assert r.status_code == 200 and r.mimetype == "text/csv"
+    _, rows = csv_answer(r.get_data(as_text=True))
+    json_answer = client.post(
+        "/v1/boiling-point", json={"gauge_pressure": {"value": [-0.6, 0, 9.5], "unit": "bar"}, "elevation": 1420}
+    ).get_json()
+    assert [float(row["boiling_point [degC]"]) for row in rows] == json_answer["boiling_point"]["value"]
+    assert [float(row["pressure [kPa]"]) for row in rows] == json_answer["pressure"]["value"]
+
+
+def test_csv_body_with_query_options_answers_json(client) -> None:
+    text = "temperature,static_head\n20,1.5\n60,2.5\n"
+    r = client.post("/v1/npsh-available?fluid=water&pressure=101.325", data=text, content_type="text/csv")
+    assert r.mimetype == "application/json"
+    assert len(r.get_json()["npsh_available"]["value"]) == 2
+
+
+@pytest.mark.parametrize(
+    "text",
+    ["temperature\n", "temperature\nhot\n", "temperature,static_head\n1\n", "colour\n1\n", "\n", "temperature\nnull\n"],
+)
+def test_bad_csv_bodies(client, text: str) -> None:
+    r = client.post("/v1/vapor-pressure", data=text, content_type="text/csv")
+    assert r.status_code == 400, r.get_json()
+
+
+def test_csv_rows_with_too_many_or_too_few_cells_are_refused(client) -> None:
+    # Three cells and then one add up to two rows of two, but they are not: refused, naming the row.
+    r = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2,3\n4\n", content_type="text/csv")
+    assert r.status_code == 400 and "row 2 of the file (the header is row 1) has 3" in r.get_json()["detail"]
+    blank = client.post("/v1/boiling-point", data="gauge_pressure,elevation\n1,2\n\n3,4\n", content_type="text/csv")
+    assert blank.status_code == 400 and "row 3 of the file (the header is row 1) has 1" in blank.get_json()["detail"]
+    for ending in ("\r\n", "\r"):  # Windows, and old Mac spreadsheets
+        body = f"pressure{ending}100{ending}50{ending}"
+        answer = client.post("/v1/boiling-point", data=body, content_type="text/csv")
+        assert answer.status_code == 200 and len(answer.get_json()["boiling_point"]["value"]) == 2, ending
+
+
+def test_a_csv_column_named_twice_is_refused(client) -> None:
+    r = client.post("/v1/boiling-point", data="pressure,pressure [kPa]\n1,2\n", content_type="text/csv")
+    assert r.status_code == 400

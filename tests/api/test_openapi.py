@@ -1,33 +1,12 @@
-"""Index, health, readiness, and the OpenAPI document (served and committed)."""
+"""The OpenAPI document (``service.api.openapi``): the committed file is valid OpenAPI 3.1, documents
+every path and unit, and has not drifted from the code. ``paths/test_meta.py`` checks it is served."""
 
 import yaml
 from openapi_spec_validator import validate
 
 from service.api.openapi import document_yaml
+from tests.api.paths.test_meta import SERVICE_PATHS, V1_PATHS
 from tests.conftest import ROOT
-
-SERVICE_PATHS = ("/healthz", "/readyz", "/metrics", "/openapi.json")
-V1_PATHS = (
-    "/v1/boiling-point",
-    "/v1/vapor-pressure",
-    "/v1/elevation",
-    "/v1/atmosphere",
-    "/v1/saturation-margin",
-    "/v1/npsh-available",
-    "/v1/fluids",
-)
-
-
-def test_index_lists_the_paths(client) -> None:
-    body = client.get("/").get_json()
-    for path in (*V1_PATHS, *SERVICE_PATHS):
-        assert path in body["paths"]
-
-
-def test_health_and_readiness(client) -> None:
-    assert client.get("/healthz").get_json() == {"status": "ok"}
-    ready = client.get("/readyz").get_json()
-    assert ready["status"] == "ready" and ready["fluids"] >= 1
 
 
 def test_committed_document_is_valid_openapi_31(openapi_document) -> None:
@@ -39,10 +18,6 @@ def test_committed_document_has_not_drifted_from_the_code(app) -> None:
     # `make openapi` regenerates the file; this fails when the schemas changed without it.
     with app.app_context():
         assert document_yaml() == (ROOT / "openapi" / "openapi.yaml").read_text(encoding="utf-8")
-
-
-def test_served_document_is_the_committed_one(client, openapi_document) -> None:
-    assert client.get("/openapi.json").get_json() == openapi_document
 
 
 def test_every_path_and_unit_is_documented(openapi_document) -> None:

@@ -1,6 +1,10 @@
-"""Where a fluid does not boil: triple point, critical point, stated ranges, extrapolation."""
+"""The domain's refusals and cautions over HTTP (``service.api.refusals``): where a fluid does not boil
+(triple point, critical point, stated ranges, extrapolation), and 422 problems that name each refused
+value and its limit in the request's units."""
 
 import pytest
+
+from tests.api.test_problems import problem
 
 
 def test_carbon_dioxide_sublimes_at_one_atmosphere(client) -> None:
@@ -10,12 +14,6 @@ def test_carbon_dioxide_sublimes_at_one_atmosphere(client) -> None:
     detail = r.get_json()["detail"]
     assert "triple-point pressure of Carbon dioxide" in detail and "sublimes" in detail and "atm" in detail
     assert client.get("/v1/fluids/carbon-dioxide").get_json()["normal_boiling_point"] is None
-
-
-def test_carbon_dioxide_boils_above_its_triple_point(client) -> None:
-    # CO2 saturation at 20 degC: 5.73 MPa (common practice, no source; CoolProp gives 5.729 MPa).
-    body = client.get("/v1/vapor-pressure?fluid=CO2&temperature=20&pressure_unit=MPa").get_json()
-    assert body["vapor_pressure"]["value"] == pytest.approx(5.73, abs=0.02)
 
 
 def test_helium(client) -> None:
@@ -51,36 +49,41 @@ def test_near_the_critical_point_warns(client) -> None:
     assert any("Within 2 % of the critical temperature" in w for w in body["warnings"])
 
 
-def test_catalog_lists_forty_fluids_with_sources(client) -> None:
-    body = client.get("/v1/fluids").get_json()
-    assert body["count"] >= 40
-    for fluid in body["fluids"]:
-        assert fluid["cas"] and fluid["source"] and fluid["method"]
-        assert fluid["range"]["temperature_min"]["value"] < fluid["range"]["temperature_max"]["value"]
+def test_limits_are_named_in_the_request_unit(client) -> None:
+    body = problem(client.get("/v1/boiling-point?pressure=0.05&pressure_unit=psi"), 422)
+    assert "triple-point pressure of Water, 0.0887133 psi" in body["detail"]
+    body = problem(client.get("/v1/vapor-pressure?temperature=800&temperature_unit=degF"), 422)
+    assert "critical temperature of Water, 705.103 degF" in body["detail"]
+
+
+def test_post_array_names_the_bad_indexes(client) -> None:
+    body = problem(client.post("/v1/boiling-point", json={"pressure": [100, 0.1, 50, 0.2]}), 422)
+    assert body["errors"]["pressure"][0].startswith("index 1: ")
+    assert body["errors"]["pressure"][1].startswith("index 3: ")
+    assert "2 values in all" in body["detail"]
+
+
+def test_mixed_valid_and_invalid_points_refuse_the_request_with_indexes(client) -> None:
+    r = client.post("/v1/vapor-pressure", json={"temperature": [20, -30, 50, 400]})
+    assert r.status_code == 422
+    messages = r.get_json()["errors"]["temperature"]
+    assert messages[0].startswith("index 1: ") and messages[1].startswith("index 3: ")
 
 
 @pytest.mark.parametrize(
-    ("name", "fluid_id"),
+    "query",
     [
-        ("ethyl alcohol", "ethanol"),
-        ("64-17-5", "ethanol"),
-        ("R-134A", "r134a"),
-        ("IPA", "2-propanol"),
-        ("Toluene", "toluene"),
-        ("N2", "nitrogen"),
+        "/v1/vapor-pressure?temperature=0.01",
+        "/v1/boiling-point?pressure=0.611657",
+        "/v1/vapor-pressure?temperature=32.018&temperature_unit=degF",
     ],
 )
-def test_lookup_names(client, name: str, fluid_id: str) -> None:
-    assert client.get(f"/v1/fluids/{name}").get_json()["id"] == fluid_id
+def test_the_triple_point_itself_is_inside(client, query: str) -> None:
+    # 0.01 degC and 611.657 Pa are water's triple point (IAPWS 1992); 32.018 degF is 0.01 degC.
+    assert client.get(query).status_code == 200
 
 
-def test_unknown_fluid_suggests_three(client) -> None:
-    r = client.get("/v1/boiling-point?pressure=50&fluid=tolune")
-    assert r.status_code == 404
-    assert "toluene" in r.get_json()["detail"]
-    assert r.get_json()["detail"].count(",") >= 2
-
-
-def test_search_names_and_aliases(client) -> None:
-    ids = [f["id"] for f in client.get("/v1/fluids?q=xylene").get_json()["fluids"]]
-    assert {"o-xylene", "m-xylene", "p-xylene"} <= set(ids)
+def test_limits_and_values_are_printed_distinct(client) -> None:
+    detail = client.get("/v1/boiling-point?pressure=0.6116569").get_json()["detail"]
+    value, limit = detail.split(" is below ")[0].split(": ")[1], detail.split("Water, ")[1].split(":")[0]
+    assert value != limit

@@ -1,5 +1,5 @@
 """A Python client generated from openapi/openapi.yaml by a mainstream generator keeps every schema and
-answers a call of each path.
+answers a call of each path: a contract suite over every path, not the tests of one module.
 
 The generator is openapi-python-client (a test-only dependency); ``literal_enums`` lets it type the unit
 enums, whose spellings differ only in letter case (`kPa`, `kpa`, `KPA`). It does not support CSV request

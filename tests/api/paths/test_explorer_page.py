@@ -1,7 +1,7 @@
-"""GET /docs in a real browser: Debian's headless Chromium, driven by selenium, opens the API
-explorer served by the app on a loopback port, finds every operation of /openapi.json on the
-page, makes one request from it ("Try it out", "Execute") and reads the answer, and the
-browser's console shows no content-security-policy violation or any other error.
+"""GET /docs (``service.api.paths.explorer`` and its page, ``explorer_page/``) in a real browser: Debian's
+headless Chromium, driven by selenium, opens the API explorer served by the app on a loopback port, finds
+every operation of /openapi.json on the page, makes one request from it ("Try it out", "Execute") and
+reads the answer, and the browser's console shows no content-security-policy violation or any other error.
 
 Without Chromium and chromedriver (``apt-get install chromium chromium-driver``) the tests skip
 on a developer's machine, but fail when ``BOILING_REQUIRE_BROWSER=1``, as CI sets it (``.ci/run``).

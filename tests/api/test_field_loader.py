@@ -1,4 +1,9 @@
-"""The lean loader answers as marshmallow's Schema.load does, for every computing path."""
+"""The lean loader (``service.api.field_loader.FieldLoader``) answers as marshmallow's Schema.load does,
+for every computing path.
+
+``OPERATIONS`` fills as the path modules are imported; this module imports them itself, so that its cases
+do not depend on another test module having built the app before it is collected.
+"""
 
 from typing import Any
 
@@ -7,6 +12,7 @@ from marshmallow import EXCLUDE, Schema, ValidationError, fields, post_load
 
 from service.api.computing_path import OPERATIONS
 from service.api.field_loader import FieldLoader
+from service.api.paths import margins, saturation, standard_atmosphere  # noqa: F401 (registers OPERATIONS)
 from service.api.quantity_fields import Quantity
 
 # Queries and bodies of every kind: valid, wrong types, unknown keys, NaN, bad units, nested fluids.

@@ -1,8 +1,10 @@
-"""GET and POST /v1/boiling-point."""
+"""GET and POST /v1/boiling-point (``service.api.paths.saturation``): answers, the instrument inputs
+(pressure uncertainty, depth), cautions and refusals."""
 
 import pytest
 
 from service.physics import atmosphere, water
+from tests.api.test_problems import problem
 
 
 def value(response, field):
@@ -98,11 +100,6 @@ def test_near_critical_warning(client) -> None:
     assert any("critical temperature" in w for w in body["warnings"])
 
 
-def test_fluid_by_alias_and_cas(client) -> None:
-    for name in ("H2O", "7732-18-5", "Steam"):
-        assert client.get(f"/v1/boiling-point?pressure=100&fluid={name}").get_json()["fluid"] == "water"
-
-
 @pytest.mark.parametrize(
     ("reading", "meant"),
     [("1013", "1013 would be 101.3 kPa in hPa or mbar"), ("29.92", "29.92 would be 101.321 kPa in inHg")],
@@ -122,3 +119,92 @@ def test_the_gauge_reading_is_echoed_beside_the_absolute_pressure(client) -> Non
     assert body["gauge_pressure"] == {"value": 950.0, "unit": "kPa"}
     assert body["pressure"] == {"value": pytest.approx(1035.4), "unit": "kPa"}
     assert "gauge_pressure" not in client.get("/v1/boiling-point?pressure=100").get_json()
+
+
+@pytest.mark.parametrize(
+    ("query", "status", "field"),
+    [
+        ("pressure=abc", 400, "pressure"),
+        ("pressure=nan", 400, "pressure"),
+        ("pressure=inf", 400, "pressure"),
+        ("pressure=-Infinity", 400, "pressure"),
+        ("pressure=", 400, "pressure"),
+        ("pressure=-5", 422, "pressure"),
+        ("pressure=0", 422, "pressure"),
+        ("pressure=0.5", 422, "pressure"),  # below the triple point of water
+        ("pressure=30000", 422, "pressure"),  # above the critical point
+        ("pressure=100&pressure_unit=furlong", 400, "pressure_unit"),
+        ("pressure=100&temperature_unit=kPa", 400, "temperature_unit"),
+        ("pressure=100&fluid=", 400, "fluid"),
+        ("pressure=100&extrapolate=maybe", 400, "extrapolate"),
+        ("", 400, "pressure"),
+        ("gauge_pressure=100", 400, "gauge_pressure"),
+        ("pressure=100&gauge_pressure=5", 400, "gauge_pressure"),
+        ("pressure=100&elevation=5", 400, "elevation"),
+        ("gauge_pressure=5&elevation=100&barometric_pressure=90", 400, "barometric_pressure"),
+        ("gauge_pressure=5&barometric_pressure=90&sea_level_pressure=101", 400, "sea_level_pressure"),
+        ("elevation=100&sea_level_pressure=50", 422, "sea_level_pressure"),
+        ("gauge_pressure=-90&elevation=1420", 422, "gauge_pressure"),  # vacuum deeper than the atmosphere
+        ("gauge_pressure=-5&barometric_pressure=-3", 422, "barometric_pressure"),
+        ("elevation=90000", 422, "elevation"),
+        ("pressure=100&pressure=200", 400, "pressure"),
+        ("pressure=100&colour=blue", 400, "colour"),
+    ],
+)
+def test_boiling_point_refusals(client, query: str, status: int, field: str) -> None:
+    body = problem(client.get(f"/v1/boiling-point?{query}"), status)
+    assert field in body["errors"], body
+
+
+G = 9.80665
+
+
+def test_uncertainty_is_slope_times_pressure_uncertainty(client) -> None:
+    body = client.get("/v1/boiling-point?barometric_pressure=85.39&pressure_uncertainty=0.05").get_json()
+    assert body["boiling_point_uncertainty"] == {
+        "value": pytest.approx(body["sensitivity"]["value"] * 0.05, rel=1e-12),
+        "unit": "K",
+    }
+
+
+def test_uncertainty_in_fahrenheit_and_psi(client) -> None:
+    body = client.get(
+        "/v1/boiling-point?pressure=14.7&pressure_unit=psi&temperature_unit=degF&pressure_uncertainty=0.02"
+    ).get_json()
+    assert body["boiling_point_uncertainty"]["unit"] == "degR"
+    assert body["boiling_point_uncertainty"]["value"] == pytest.approx(body["sensitivity"]["value"] * 0.02)
+
+
+def test_depth_adds_the_head_of_the_boiling_liquid(client) -> None:
+    # Independent computation: iterate p = p0 + rho'(Tsat(p)) g h with the physics functions directly.
+    p0, depth = 85_390.0, 0.25
+    p = p0
+    for _ in range(20):
+        p = p0 + float(water.saturated_liquid_density(water.saturation_temperature(p))) * G * depth
+    body = client.get(f"/v1/boiling-point?barometric_pressure=85.39&depth={depth}").get_json()
+    assert body["surface_pressure"]["value"] == pytest.approx(85.39)
+    assert body["pressure"]["value"] == pytest.approx(p / 1e3, rel=1e-9)
+    assert body["boiling_point"]["value"] == pytest.approx(float(water.saturation_temperature(p)) - 273.15, abs=1e-9)
+    # Through the slope: the rise is about rho g h times dT/dp (0.25 m of water near 95 degC: ~0.75 K;
+    # the slope falls across the 2.4 kPa step, so the linear estimate is 1 % high).
+    surface = client.get("/v1/boiling-point?barometric_pressure=85.39").get_json()
+    rise = body["boiling_point"]["value"] - surface["boiling_point"]["value"]
+    assert rise == pytest.approx(962.0 * G * depth / 1e3 * surface["sensitivity"]["value"], rel=0.02)
+    assert "saturated-liquid density" in body["method"]
+
+
+def test_depth_refusals(client) -> None:
+    assert client.get("/v1/boiling-point?pressure=100&depth=-1").status_code == 422
+
+
+def test_standard_atmosphere_warning_gives_the_weather_spread(client) -> None:
+    body = client.get("/v1/boiling-point?elevation=1420").get_json()
+    spread = next(w for w in body["warnings"] if "3%" in w)
+    # 3 % of 85.39 kPa times 0.3187 K/kPa is about 0.82 K.
+    assert "0.82 K" in spread
+
+
+def test_a_station_sea_level_pressure_gets_its_own_caution(client) -> None:
+    body = client.get("/v1/boiling-point?elevation=1420&sea_level_pressure=101.9").get_json()
+    assert any("scaled to the station's sea-level pressure" in w for w in body["warnings"])
+    assert not any("3% change" in w for w in body["warnings"])

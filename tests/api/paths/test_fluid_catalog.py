@@ -1,4 +1,5 @@
-"""GET /v1/fluids and /v1/fluids/<name>."""
+"""GET /v1/fluids and /v1/fluids/<name> (``service.api.paths.fluid_catalog``): the list, search and
+details. How a name is looked up is ``test_catalog_lookup.py``'s."""
 
 import pytest
 
@@ -29,18 +30,6 @@ def test_detail_in_requested_units(client) -> None:
     assert "IAPWS" in body["method"] and "1993" in body["source"]
 
 
-def test_unknown_fluid_lists_close_matches(client) -> None:
-    r = client.get("/v1/fluids/watter")
-    assert r.status_code == 404
-    assert "water" in r.get_json()["detail"]
-
-
-def test_unknown_fluid_on_a_computing_path(client) -> None:
-    r = client.get("/v1/boiling-point?pressure=100&fluid=unobtainium")
-    assert r.status_code == 404
-    assert r.get_json()["errors"] == {"fluid": ["unknown fluid 'unobtainium'"]}
-
-
 def test_bad_unit_on_the_catalog(client) -> None:
     assert client.get("/v1/fluids?temperature_unit=kelvins").status_code == 400
 
@@ -65,3 +54,16 @@ def test_one_normal_boiling_point_per_fluid_the_one_the_service_computes(client)
         "unit": "K",
     }
     assert "Schroeder" in reference["source"]
+
+
+def test_catalog_lists_forty_fluids_with_sources(client) -> None:
+    body = client.get("/v1/fluids").get_json()
+    assert body["count"] >= 40
+    for fluid in body["fluids"]:
+        assert fluid["cas"] and fluid["source"] and fluid["method"]
+        assert fluid["range"]["temperature_min"]["value"] < fluid["range"]["temperature_max"]["value"]
+
+
+def test_search_names_and_aliases(client) -> None:
+    ids = [f["id"] for f in client.get("/v1/fluids?q=xylene").get_json()["fluids"]]
+    assert {"o-xylene", "m-xylene", "p-xylene"} <= set(ids)

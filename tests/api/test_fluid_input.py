@@ -1,4 +1,5 @@
-"""Fluids defined in the request: an equation as printed, or one known boiling point."""
+"""The ``fluid`` of a request (``service.api.fluid_input``): fluids defined in the request, an equation
+as printed or one known boiling point, and definitions refused."""
 
 import pytest
 from CoolProp.CoolProp import PropsSI
@@ -150,3 +151,39 @@ def test_absurd_boiling_points_are_refused(client, point: float, unit: str) -> N
         "/v1/vapor-pressure", json={"fluid": {"boiling_point": point, "temperature_unit": unit}, "temperature": 50}
     )
     assert r.status_code == 400 and "fluid" in r.get_json()["errors"]
+
+
+@pytest.mark.parametrize(
+    "fluid",
+    [
+        {
+            "equation": "wagner",
+            "coefficients": [-7.8],
+            "exponents": [1e308],
+            "critical_temperature": 373.946,
+            "critical_pressure": 22064,
+            "t_min": 0.01,
+            "t_max": 373.946,
+        },
+        {"boiling_point": 1e300},
+        {"boiling_point": 1e-300, "temperature_unit": "K"},
+    ],
+)
+def test_absurd_definitions_are_refused(client, fluid: dict) -> None:
+    assert client.post("/v1/boiling-point", json={"fluid": fluid, "pressure": [100]}).status_code == 400
+
+
+def test_dippr101_with_unused_large_exponent(client) -> None:
+    # D = 0 makes E irrelevant; a huge E must not turn the slope into NaN.
+    water = {
+        "equation": "dippr101",
+        "A": 73.649,
+        "B": -7258.2,
+        "C": -7.3037,
+        "D": 0.0,
+        "E": 1e6,
+        "temperature_unit": "K",
+        "t_min": 300,
+        "t_max": 400,
+    }
+    assert client.post("/v1/vapor-pressure", json={"fluid": water, "temperature": 50}).status_code == 200

@@ -1,4 +1,4 @@
-"""GET and POST /v1/elevation."""
+"""GET and POST /v1/elevation (``service.api.paths.saturation``)."""
 
 import pytest
 
@@ -43,3 +43,7 @@ def test_pressure_outside_the_atmosphere(client) -> None:
     assert r.status_code == 422
     assert "bottom of the standard atmosphere" in r.get_json()["detail"]
     assert "kPa" in r.get_json()["detail"]
+
+
+def test_elevation_refuses_an_unknown_fluid_even_with_a_pressure(client) -> None:
+    assert client.get("/v1/elevation?pressure=85&fluid=nope").status_code == 404

@@ -1,4 +1,5 @@
-"""Margin to boiling and NPSH available."""
+"""Margin to boiling and NPSH available: /v1/saturation-margin and /v1/npsh-available
+(``service.api.paths.margins``)."""
 
 import pytest
 

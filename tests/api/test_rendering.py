@@ -1,6 +1,5 @@
-"""Plain text for terminals and CSV for arrays: both parse back to the JSON values."""
-
-import pytest
+"""Answers as JSON, plain text for terminals and CSV for arrays (``service.api.rendering``): both parse
+back to the JSON values; array warnings name the points they concern."""
 
 from tests.conftest import csv_answer
 
@@ -79,57 +78,6 @@ def test_csv_answers_keep_method_source_and_warnings_per_row(client) -> None:
     assert [row["tag"] for row in rows] == ["TI-1", "TI-2", "TI-3"]
     assert [near.removeprefix("warning ") in row["warnings"].split() for row in rows] == [False, True, False]
     assert [float(row["vapor_pressure [kPa]"]) for row in rows] == body["vapor_pressure"]["value"]
-
-
-def test_tags_are_echoed_in_every_format(client) -> None:
-    one = client.get("/v1/boiling-point?pressure=100&tag=PT-7").get_json()
-    assert one["tag"] == "PT-7"
-    text = parse_text(client.get("/v1/boiling-point?pressure=100&tag=PT-7&format=text").get_data(as_text=True))
-    assert text["tag"] == ["PT-7"]
-    many = client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": ["PT-7", "PT-8"]}).get_json()
-    assert many["tag"] == ["PT-7", "PT-8"]
-    shared = client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": "drum"}).get_json()
-    assert shared["tag"] == "drum"
-    assert client.post("/v1/boiling-point", json={"pressure": [90, 100], "tag": ["a", "b", "c"]}).status_code == 400
-    assert client.post("/v1/boiling-point", json={"pressure": 90, "tag": [1]}).status_code == 400
-    assert client.get("/v1/boiling-point?pressure=100&tag=").status_code == 400
-
-
-def test_digits_round_every_number_in_every_format(client) -> None:
-    query = "/v1/boiling-point?gauge_pressure=950&elevation=1420&digits=4"
-    body = client.get(query).get_json()
-    assert body["boiling_point"]["value"] == 181.4 and body["pressure"]["value"] == 1035.0
-    assert body["sensitivity"]["value"] == 0.04228
-    text = parse_text(client.get(query + "&format=text").get_data(as_text=True))
-    assert text["boiling_point"] == ["181.4 degC"]
-    _, rows = csv_answer(
-        client.post("/v1/boiling-point?format=csv&digits=3", json={"pressure": [101.325, 50]}).get_data(as_text=True)
-    )
-    assert rows[0]["boiling_point [degC]"] == "100.0"
-    full = client.get("/v1/boiling-point?gauge_pressure=950&elevation=1420").get_json()
-    assert full["boiling_point"]["value"] == 181.3948870639569  # without digits: every digit of the double
-    for bad in ("0", "18", "x", "١"):
-        assert client.get(f"/v1/boiling-point?pressure=100&digits={bad}").status_code == 400
-
-
-def test_echoed_inputs_come_back_as_sent(client) -> None:
-    body = client.get("/v1/vapor-pressure?temperature=200&temperature_unit=degF").get_json()
-    assert body["temperature"] == {"value": 200.0, "unit": "degF"}
-    margin = client.get(
-        "/v1/saturation-margin?temperature=0.1&temperature_unit=degC&pressure=14.7&pressure_unit=psi"
-    ).get_json()
-    assert margin["temperature"]["value"] == 0.1 and margin["pressure"]["value"] == 14.7
-    posted = client.post(
-        "/v1/boiling-point", json={"gauge_pressure": {"value": [10, 20], "unit": "psig"}, "barometric_pressure": 85.4}
-    ).get_json()
-    assert posted["gauge_pressure"] == {"value": pytest.approx([68.9475729, 137.8951459]), "unit": "kPa"}
-
-
-def test_digits_never_turn_a_number_into_null(client) -> None:
-    # 1.75e308 rounded to 2 digits would be 1.8e308, beyond double range: it stays as it is.
-    body = client.get("/v1/npsh-available?temperature=72&pressure=100&static_head=1.75e308&digits=2").get_json()
-    assert body["static_head"]["value"] == 1.75e308 and body["npsh_available"]["value"] == 1.75e308
-    assert body["pressure"]["value"] == 100.0
 
 
 def test_a_tag_starting_with_a_hash_stays_a_row(client) -> None:

@@ -1,4 +1,5 @@
-"""GET /docs and its assets without a browser: media types, caching and content-security policies.
+"""GET /docs and its assets (``service.api.paths.explorer``) without a browser: media types, caching and
+content-security policies.
 
 The browser test (``test_explorer_page.py``) shows that the page works under its policy.
 """

@@ -1,4 +1,4 @@
-"""GET and POST /v1/atmosphere."""
+"""GET and POST /v1/atmosphere (``service.api.paths.standard_atmosphere``)."""
 
 import pytest
 
