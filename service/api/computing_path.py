@@ -139,6 +139,8 @@ class Operation:
     """Options that take another field in a POST body than in the query string."""
     errors: tuple[int, ...] = (400, 404, 422)
     """Problem statuses of the GET; the POST adds 408, 413 and 415."""
+    fields: dict[str, dict[str, fields.Field]] = field(init=False, repr=False)
+    """The fields of the query string, the POST body and the POST query string, by kind."""
     query_schema: type[Schema] = field(init=False)
     body_schema: type[Schema] = field(init=False)
     post_query_schema: type[Schema] = field(init=False)
@@ -169,29 +171,25 @@ class Operation:
             for n, s in self.inputs.items()
         }
         common = {"tag": TAG, "digits": DIGITS}
-        self.query_schema = Schema.from_dict(
-            name=f"{self.name}Query",
-            fields={**numbers(True), **units, "format": _format_field("json", "text"), **self.options, **common},
-        )
-        self.body_schema = Schema.from_dict(
-            name=f"{self.name}Body",
-            fields={**body, **units, **self.options, **self.body_options, "tag": BODY_TAG, "digits": DIGITS},
-        )
-        # Documented without defaults: a client that sent them would clash with the body's own values.
-        self.post_query_schema = Schema.from_dict(
-            name=f"{self.name}PostQuery",
-            fields={
+        self.fields = {
+            "query": {**numbers(True), **units, "format": _format_field("json", "text"), **self.options, **common},
+            "body": {**body, **units, **self.options, **self.body_options, "tag": BODY_TAG, "digits": DIGITS},
+            # Documented without defaults: a client that sent them would clash with the body's own values.
+            "post_query": {
                 **numbers(False),
                 **units,
                 "format": _format_field("json", "csv"),
                 **{name: _without_default(f) for name, f in {**self.options, **common}.items()},
             },
+        }
+        self.query_schema, self.body_schema, self.post_query_schema = (
+            Schema.from_dict(self.fields[kind], name=f"{self.name}{suffix}")
+            for kind, suffix in (("query", "Query"), ("body", "Body"), ("post_query", "PostQuery"))
         )
-        # Built once: a schema instance deep-copies its fields, too slow to repeat per request.
         self._loaders = {
-            "query": FieldLoader(self.query_schema()),
-            "body": FieldLoader(self.body_schema()),
-            "format": FieldLoader(Schema.from_dict({"format": _format_field("json", "csv")})()),
+            "query": FieldLoader(self.fields["query"]),
+            "body": FieldLoader(self.fields["body"]),
+            "format": FieldLoader({"format": _format_field("json", "csv")}),
         }
 
     def parse(self, data: Mapping[str, Any], kind: str) -> Inputs:

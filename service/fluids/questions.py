@@ -15,7 +15,7 @@ from numpy.typing import NDArray
 from service.fluids.boiling import Boiling
 from service.fluids.cautions import Caution, Shown, Warnings
 from service.fluids.fluid import LiquidDensity
-from service.fluids.limits import Refusal, check_limits, refuse_outside
+from service.fluids.limits import Refusal, any_of, check_limits, refuse_outside
 from service.fluids.site_pressure import (
     LocalPressure,
     PressureReadings,
@@ -243,7 +243,7 @@ def npsh_available(
     )
     density = required_density(boiling)
     outside = (temperature < density.t_min) | (temperature > density.t_max)
-    if np.any(outside):
+    if any_of(outside):
         where = f"the stated range of the {density.method} for {boiling.name}, {{limit}}"
         if not extrapolate:
             refuse_outside("temperature", "temperature", temperature, density.t_min, density.t_max, where, where)
@@ -262,7 +262,7 @@ def npsh_available(
     answer.density = density.density(temperature)
     answer.npsh = npsh = hydrostatics.npsh_available(local.value, vapor, answer.density, static_head, friction_loss)
     boils = local.value < vapor
-    if np.any(boils):
+    if any_of(boils):
         answer.warnings.append(
             Caution(
                 "The surface pressure is below the liquid's vapor pressure: the liquid boils at the "
@@ -270,7 +270,7 @@ def npsh_available(
                 boils,
             )
         )
-    if np.any(npsh < 0):
+    if any_of(npsh < 0):
         answer.warnings.append(
             Caution(
                 "NPSH available is negative: the pressure at the suction falls below the vapor pressure, so the "
@@ -287,7 +287,7 @@ def npsh_available(
 def near_critical(boiling: Boiling, temperature: Numbers) -> Warnings:
     """The caution owed where a saturation temperature lies within 2 % of the critical temperature."""
     near = temperature > NEAR_CRITICAL * boiling.critical_temperature
-    if not np.any(near):
+    if not any_of(near):
         return []
     return [
         Caution(

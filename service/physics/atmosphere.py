@@ -18,6 +18,8 @@ scalars for single values.
 
 from __future__ import annotations
 
+from collections.abc import Callable
+
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
@@ -104,6 +106,19 @@ def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | np.intp:
     return np.searchsorted(_BASE_HEIGHT[1:], h, side="right")
 
 
+def _layer_by_layer(
+    layers: NDArray[np.intp] | np.intp, formula: Callable[[int, NDArray], NDArray], x: NDArray
+) -> NDArray:
+    """``formula(layer, x)`` for the values of ``x`` in each layer of ``layers`` (a single value: its own layer)."""
+    if np.ndim(x) == 0:
+        return formula(int(layers), x)
+    out = np.empty(np.shape(x))
+    for layer in np.unique(layers).tolist():
+        inside = layers == layer
+        out[inside] = formula(layer, x[inside])
+    return out
+
+
 @blockwise
 def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
     """Kinetic air temperature T [K] at geometric elevation [m], eq. (23) with Table 8.
@@ -123,6 +138,23 @@ def _molecular_temperature(h: NDArray) -> NDArray:
     return _BASE_T[i] + _LAPSE[i] * (h - _BASE_HEIGHT[i])
 
 
+def _layer_pressure(layer: int, h: NDArray) -> NDArray:
+    """P [Pa] at geopotential height ``h`` [m'] in ``layer``: eq. (33a) where the lapse rate is not zero, (33b)
+    where it is."""
+    base_t, base_p, lapse, dh = _BASE_T[layer], _BASE_P[layer], _LAPSE[layer], h - _BASE_HEIGHT[layer]
+    if lapse == 0.0:
+        return base_p * np.exp(-_K * dh / base_t)
+    return base_p * np.power(base_t / (base_t + lapse * dh), _K / lapse)
+
+
+def _layer_height(layer: int, p: NDArray) -> NDArray:
+    """Geopotential height [m'] of standard pressure ``p`` [Pa] in ``layer``: eqs. (33a) and (33b) solved for H."""
+    base_t, ln_ratio, lapse = _BASE_T[layer], np.log(p / _BASE_P[layer]), _LAPSE[layer]
+    if lapse == 0.0:
+        return _BASE_HEIGHT[layer] - base_t / _K * ln_ratio
+    return _BASE_HEIGHT[layer] + base_t / lapse * np.expm1(-lapse / _K * ln_ratio)
+
+
 @blockwise
 def pressure_at_elevation(
     elevation: ArrayLike, sea_level_pressure: ArrayLike = SEA_LEVEL_PRESSURE
@@ -137,9 +169,7 @@ def pressure_at_elevation(
     177760.0
     """
     h = geopotential_height(elevation)
-    i = _layer_of_height(h)
-    pressure = _BASE_P[i] * np.exp(_layer_ln_pressure_drop(_LAPSE[i], _BASE_T[i], h - _BASE_HEIGHT[i]))
-    return pressure * (sea_level_pressure / SEA_LEVEL_PRESSURE)
+    return _layer_by_layer(_layer_of_height(h), _layer_pressure, h) * (sea_level_pressure / SEA_LEVEL_PRESSURE)
 
 
 @blockwise
@@ -173,13 +203,7 @@ def elevation_at_pressure(
     11000
     """
     p = pressure * (SEA_LEVEL_PRESSURE / sea_level_pressure)
-    i = _layer_of_pressure(p)
-    ln_ratio = np.log(p / _BASE_P[i])
-    lapse, base_t = _LAPSE[i], _BASE_T[i]
-    linear = lapse != 0.0
-    safe_lapse = np.where(linear, lapse, 1.0)
-    rise = np.where(linear, base_t / safe_lapse * np.expm1(-safe_lapse / _K * ln_ratio), -base_t / _K * ln_ratio)
-    return geometric_elevation(_BASE_HEIGHT[i] + rise)
+    return geometric_elevation(_layer_by_layer(_layer_of_pressure(p), _layer_height, p))
 
 
 PRESSURE_AT_MIN_ELEVATION = float(pressure_at_elevation(MIN_ELEVATION))
