@@ -51,9 +51,16 @@ def free_port() -> int:
 
 
 @contextlib.contextmanager
-def gunicorn(port: int, **env: str) -> Iterator[tuple[str, int]]:
-    """The service under gunicorn with docker/gunicorn.conf.py, as `make serve` starts it: its URL and master pid."""
+def gunicorn(port: int, root: Path = ROOT, log: Path | None = None, **env: str) -> Iterator[tuple[str, int]]:
+    """The service under gunicorn with docker/gunicorn.conf.py, as `make serve` starts it: its URL and master pid.
+
+    ``root`` is the checkout to serve (another one, such as a worktree of an older revision, brings its own
+    code, put first on PYTHONPATH, and its own gunicorn.conf.py); ``log`` keeps gunicorn's output.
+    """
     environ = {**os.environ, "HOST": "127.0.0.1", "PORT": str(port), **env}
+    if root != ROOT:
+        environ["PYTHONPATH"] = os.pathsep.join([str(root), *filter(None, [os.environ.get("PYTHONPATH")])])
+    output = open(log, "wb") if log else subprocess.DEVNULL  # noqa: SIM115 - closed below
     process = subprocess.Popen(
         [
             str(Path(sys.executable).with_name("gunicorn")),
@@ -61,10 +68,10 @@ def gunicorn(port: int, **env: str) -> Iterator[tuple[str, int]]:
             "docker/gunicorn.conf.py",
             "service:create_app()",
         ],
-        cwd=ROOT,
+        cwd=root,
         env=environ,
-        stdout=subprocess.DEVNULL,
-        stderr=subprocess.DEVNULL,
+        stdout=output,
+        stderr=subprocess.STDOUT if log else subprocess.DEVNULL,
     )
     base = f"http://127.0.0.1:{port}"
     try:
@@ -79,3 +86,5 @@ def gunicorn(port: int, **env: str) -> Iterator[tuple[str, int]]:
     finally:
         process.terminate()
         process.wait(timeout=30)
+        if log:
+            output.close()

@@ -1,4 +1,4 @@
-"""Computing operations: one declaration gives the GET and POST views and their OpenAPI entry.
+"""Computing paths: one declaration gives the GET and POST views and their OpenAPI entry.
 
 Each operation names its input quantities once. From that list come the query-string
 schema of its GET (plain numbers in the request's units), the JSON-body schema of its POST
@@ -37,7 +37,7 @@ UNIT_DESCRIPTIONS = {
 }
 
 
-OPERATIONS: list[Operation] = []
+COMPUTING_PATHS: list[ComputingPath] = []
 """Every registered computing operation, in registration order."""
 
 
@@ -122,7 +122,7 @@ DIGITS = WholeNumber(
 
 
 @dataclass
-class Operation:
+class ComputingPath:
     """A computing path, answered on GET (query string) and POST (JSON or CSV body)."""
 
     path: str
@@ -290,7 +290,7 @@ class Operation:
     def register(self, blueprint: Blueprint) -> None:
         """Answer GET and POST on ``blueprint`` and list the operation in the OpenAPI document."""
         blueprint.add_url_rule(self.path, self.name, self.view, methods=["GET", "POST"])
-        OPERATIONS.append(self)
+        COMPUTING_PATHS.append(self)
 
 
 def _in_si(value: Numbers, unit: Unit) -> NDArray[np.float64] | np.float64:

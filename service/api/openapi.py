@@ -18,7 +18,7 @@ from apispec.ext.marshmallow import MarshmallowPlugin
 from flask import current_app
 
 from service.api import answer_schemas
-from service.api.computing_path import OPERATIONS, Operation
+from service.api.computing_path import COMPUTING_PATHS, ComputingPath
 from service.api.fluid_input import EquationFluid, PointFluid
 from service.api.problems import PROBLEM_TYPE, TITLES
 from service.api.quantity_fields import UNIT_SCHEMAS, QuantityField, UnitField, unit_schema, unit_spellings_schema
@@ -123,7 +123,7 @@ def problem_responses(statuses: tuple[int, ...]) -> dict[str, Any]:
     }
 
 
-def _array_example(operation: Operation) -> dict[str, Any]:
+def _array_example(operation: ComputingPath) -> dict[str, Any]:
     """The GET example with its first quantity turned into a short array."""
     body = dict(operation.example)
     first = next(k for k in body if k in operation.inputs)
@@ -140,7 +140,7 @@ _CSV_BODY = (
 )
 
 
-def _csv_example(operation: Operation, body: dict[str, Any]) -> str:
+def _csv_example(operation: ComputingPath, body: dict[str, Any]) -> str:
     """The array example as a CSV body: every input quantity a column, single values repeated."""
     columns = {k: v for k, v in body.items() if k in operation.inputs}
     length = max(len(v) for v in columns.values() if isinstance(v, list))
@@ -148,7 +148,7 @@ def _csv_example(operation: Operation, body: dict[str, Any]) -> str:
     return "\n".join([",".join(columns), *(",".join(map(repr, row)) for row in zip(*cells, strict=True))]) + "\n"
 
 
-def _computing_paths(spec: APISpec, operation: Operation) -> None:
+def _computing_paths(spec: APISpec, operation: ComputingPath) -> None:
     get_answer = shown(_rounded(operation.compute(operation.parse(operation.example, "query"))), ())
     array_body = _array_example(operation)
     post_inputs = operation.parse(array_body, "body")
@@ -268,7 +268,7 @@ def build_document() -> dict[str, Any]:
         spec.components.schema(name, unit_spellings_schema(name))
     spec.components.schema("EquationFluid", schema=EquationFluid)
     spec.components.schema("PointFluid", schema=PointFluid)
-    for operation in OPERATIONS:
+    for operation in COMPUTING_PATHS:
         _computing_paths(spec, operation)
     for path in PLAIN_PATHS:
         catalog_path = path.path.startswith("/v1/")

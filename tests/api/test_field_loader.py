@@ -1,7 +1,7 @@
 """The lean loader (``service.api.field_loader.FieldLoader``) answers as marshmallow's Schema.load does,
 for every computing path.
 
-``OPERATIONS`` fills as the path modules are imported; this module imports them itself, so that its cases
+``COMPUTING_PATHS`` fills as the path modules are imported; this module imports them itself, so that its cases
 do not depend on another test module having built the app before it is collected.
 """
 
@@ -10,9 +10,9 @@ from typing import Any
 import pytest
 from marshmallow import ValidationError, fields
 
-from service.api.computing_path import OPERATIONS
+from service.api.computing_path import COMPUTING_PATHS
 from service.api.field_loader import FieldLoader
-from service.api.paths import margins, saturation, standard_atmosphere  # noqa: F401 (registers OPERATIONS)
+from service.api.paths import margins, saturation, standard_atmosphere  # noqa: F401 (registers COMPUTING_PATHS)
 from service.api.quantity_fields import Quantity
 
 # Queries and bodies of every kind: valid, wrong types, unknown keys, NaN, bad units, nested fluids.
@@ -38,7 +38,7 @@ def outcome(load: Any, data: dict[str, Any]) -> tuple[str, Any]:
     return "loaded", {k: (v.value.tolist(), v.unit) if isinstance(v, Quantity) else v for k, v in loaded.items()}
 
 
-@pytest.mark.parametrize("operation", OPERATIONS, ids=lambda o: o.path)
+@pytest.mark.parametrize("operation", COMPUTING_PATHS, ids=lambda o: o.path)
 @pytest.mark.parametrize("kind", ["query", "body", "post_query"])
 def test_same_values_and_errors_as_schema_load(operation, kind) -> None:
     schema = {

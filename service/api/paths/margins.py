@@ -8,7 +8,7 @@ from flask import Blueprint
 from marshmallow import validate
 
 from service.api import answer_schemas
-from service.api.computing_path import Input, Inputs, Operation
+from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.numbers import Number
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, pressure_fields, readings
@@ -86,7 +86,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
 
 MEASURED_TEMPERATURE = Input("temperature", "Measured temperature of the liquid.", required=True)
 
-Operation(
+ComputingPath(
     path="/v1/saturation-margin",
     name="SaturationMargin",
     summary="How far a liquid is from boiling",
@@ -108,7 +108,7 @@ Operation(
     example={"fluid": "ethanol", "temperature": 48.0, "gauge_pressure": -55.0, "elevation": 1420.0},
 ).register(blueprint)
 
-Operation(
+ComputingPath(
     path="/v1/npsh-available",
     name="NpshAvailable",
     summary="Net positive suction head available at a pump",

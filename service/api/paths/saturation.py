@@ -7,7 +7,7 @@ from typing import Any
 from flask import Blueprint
 
 from service.api import answer_schemas
-from service.api.computing_path import Input, Inputs, Operation
+from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, SITE_INPUTS, pressure_fields, readings
 from service.api.quantity_fields import difference, quantity, ratio
@@ -63,7 +63,7 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
 
 
 for _operation in (
-    Operation(
+    ComputingPath(
         path="/v1/boiling-point",
         name="BoilingPoint",
         summary="Boiling point at a pressure, an elevation, or a gauge reading",
@@ -83,7 +83,7 @@ for _operation in (
         compute=boiling_point,
         example={"fluid": "water", "gauge_pressure": 950.0, "elevation": 1420.0},
     ),
-    Operation(
+    ComputingPath(
         path="/v1/vapor-pressure",
         name="VaporPressure",
         summary="Vapor pressure of a liquid at a temperature",
@@ -96,7 +96,7 @@ for _operation in (
         compute=vapor_pressure,
         example={"fluid": "water", "temperature": 72.0},
     ),
-    Operation(
+    ComputingPath(
         path="/v1/elevation",
         name="Elevation",
         summary="Standard-atmosphere elevation of a pressure, or of a boiling point",

@@ -8,7 +8,7 @@ import numpy as np
 from flask import Blueprint
 
 from service.api import answer_schemas
-from service.api.computing_path import Input, Inputs, Operation
+from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.quantity_fields import DENSITY, format_value, quantity
 from service.fluids import questions
 from service.physics import atmosphere
@@ -38,7 +38,7 @@ def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
     }
 
 
-Operation(
+ComputingPath(
     path="/v1/atmosphere",
     name="Atmosphere",
     summary="Air pressure, temperature and density at an elevation",
