@@ -55,6 +55,17 @@ bench-http: $(VENV)/.installed-bench
 bench-arrays: $(VENV)/.installed-bench
 	$(BIN)/python bench/arrays.py
 
+.PHONY: bench-devices bench-compare
+
+bench-devices: $(VENV)/.installed-bench
+	$(BIN)/python bench/devices.py
+
+# The HTTP and array benchmarks against two committed revisions, each from a detached worktree.
+BASE ?= eb6c1ea
+HEAD ?= HEAD
+bench-compare: $(VENV)/.installed-bench
+	$(BIN)/python bench/compare.py $(BASE) $(HEAD)
+
 # docker/requirements.lock: the image's runtime dependencies, pinned. Resolves pyproject.toml's
 # `dependencies` (no extras, and not the project itself, so nothing is built) in a throwaway venv with
 # the image's Python (CPython 3.11 on Linux x86_64; set LOCK_PYTHON to another such interpreter) and
