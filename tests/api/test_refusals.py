@@ -2,8 +2,13 @@
 (triple point, critical point, stated ranges, extrapolation), and 422 problems that name each refused
 value and its limit in the request's units."""
 
+import numpy as np
 import pytest
 
+from service.api import refusals
+from service.fluids.cautions import Caution, Shown
+from service.fluids.limits import OutOfRange
+from service.physics.units import resolve_unit
 from tests.api.test_problems import problem
 
 
@@ -87,3 +92,45 @@ def test_limits_and_values_are_printed_distinct(client) -> None:
     detail = client.get("/v1/boiling-point?pressure=0.6116569").get_json()["detail"]
     value, limit = detail.split(" is below ")[0].split(": ")[1], detail.split("Water, ")[1].split(":")[0]
     assert value != limit
+
+
+def test_a_refusal_in_si_reads_in_the_request_units() -> None:
+    # The domain keeps the limit in SI (273.16 K); a Fahrenheit request reads it in degF: 32.018 degF.
+    refused = OutOfRange(
+        "temperature",
+        "temperature",
+        np.array([300.0, 200.0]),
+        (273.16, None),
+        ("the triple point, {limit}", ""),
+        (np.array([False, True]), False),
+    )
+    answer = refusals.problem(refused, {"temperature": resolve_unit("degF", "temperature")})
+    assert answer.status == 422
+    assert answer.errors == {"temperature": ["index 1: -99.67 degF is below the triple point, 32.018 degF"]}
+
+
+def test_numbers_in_cautions_read_in_the_request_units() -> None:
+    # A temperature difference of 0.5 K reads 0.9 degR in a Fahrenheit request (1 K = 1.8 degR, by definition).
+    units = {"temperature": resolve_unit("degF", "temperature"), "pressure": resolve_unit("kPa", "pressure")}
+    cautions = [
+        Caution("moves it by {spread}", True, {"spread": Shown(0.5, "temperature difference", 2)}),
+        Caution("below {p}", np.array([True, False]), {"p": Shown(611.657, "pressure")}),
+        "plain text",
+    ]
+    shown = refusals.in_units(cautions, units)
+    assert [getattr(c, "text", c) for c in shown] == ["moves it by 0.9 degR", "below 0.611657 kPa", "plain text"]
+    assert shown[1].points.tolist() == [True, False]
+
+
+def test_a_barometer_reading_in_the_wrong_unit_names_the_units_it_fits() -> None:
+    refused = OutOfRange(
+        "barometric_pressure",
+        "pressure",
+        np.float64(1013.0),
+        (40e3, 140e3),
+        ("{limit}", "{limit}"),
+        (True, False),
+        read_as_air_pressure=True,
+    )
+    detail = refusals.problem(refused, {"pressure": resolve_unit("Pa", "pressure")}).detail
+    assert "1013 would be 101300 Pa in hPa or mbar" in detail
