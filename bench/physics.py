@@ -185,8 +185,8 @@ def main() -> None:
             for name, (function, what) in REFERENCES.items()
         ),
         "",
-        "The atmosphere uses one layer's constants for a block whose points all lie in that layer (sorted "
-        "arrays, a site's readings); the shuffled rows show blocks that mix layers.",
+        "The atmosphere computes each layer's points with that layer's printed equation; the shuffled rows "
+        "mix layers in every block.",
         "",
         *verdicts(native, reference, "this CPU's loops"),
     ]
