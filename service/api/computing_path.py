@@ -21,13 +21,14 @@ from marshmallow import Schema, ValidationError, fields, missing, validate
 from numpy.typing import NDArray
 
 from service.api.field_loader import FieldLoader
-from service.api.numbers import Number, Numbers, WholeNumber, all_finite, parse_number, printable
+from service.api.numbers import Number, WholeNumber, all_finite, parse_number, printable
 from service.api.problems import Problem, invalid
 from service.api.quantity_fields import Quantity, QuantityField, UnitField, quantity
 from service.api.refusals import problem
 from service.api.rendering import chosen_format, finish, render, respond
-from service.api.request_body import csv_table, json_object
+from service.api.request_body import csv_table, json_object, query_args
 from service.fluids.limits import Refusal
+from service.physics.array_blocks import Numbers
 from service.physics.units import Dimension, Reference, Unit, default_unit, resolve_unit
 
 UNIT_DESCRIPTIONS = {
@@ -247,13 +248,13 @@ class ComputingPath:
         else:
             raise Problem(415, "POST bodies are JSON (application/json) or CSV (text/csv).")
         inputs = self.parse(self._with_query(sent, args), "body")
-        return respond(self._answer(inputs), chosen_format(requested, ("csv",)), inputs.shape)
+        return respond(self.answer(inputs), chosen_format(requested, ("csv",)), inputs.shape)
 
     def _answer_get(self) -> tuple[bytes, str]:
         inputs = self.parse(query_args(), "query")
-        return render(self._answer(inputs), chosen_format(inputs.options.pop("format", None), ("text",)), inputs.shape)
+        return render(self.answer(inputs), chosen_format(inputs.options.pop("format", None), ("text",)), inputs.shape)
 
-    def _answer(self, inputs: Inputs) -> dict[str, Any]:
+    def answer(self, inputs: Inputs) -> dict[str, Any]:
         """The answer with its tag and rounding; refused with 422 if a number is not finite (JSON would show null)."""
         try:
             computed = self.compute(inputs)
@@ -318,16 +319,6 @@ def _broadcast_shape(shapes: Mapping[str, tuple[int, ...]]) -> tuple[int, ...]:
             {n: [f"length {s[0]}"] for n, s in shapes.items() if s},
         ) from None
     return shape
-
-
-def query_args() -> dict[str, str]:
-    """The query string as a dict; a parameter given twice is refused."""
-    pairs = list(request.args.items(multi=True))
-    args = dict(pairs)
-    if len(args) < len(pairs):
-        repeated = next(key for key in args if len(request.args.getlist(key)) > 1)
-        raise invalid(repeated, "given more than once")
-    return args
 
 
 def _same_unit(a: object, b: str, dimension: str) -> bool:

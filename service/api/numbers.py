@@ -8,11 +8,8 @@ from typing import Any
 
 import numpy as np
 from marshmallow import ValidationError, fields
-from numpy.typing import NDArray
 
-Numbers = NDArray[np.float64] | float
-"""An array of numbers, or a single number (a float or a numpy scalar)."""
-
+from service.physics.array_blocks import Numbers
 
 _JSON_NUMBER = re.compile(r"-?(?:0|[1-9][0-9]*)(?:\.[0-9]+)?(?:[eE][+-]?[0-9]+)?")
 """A number as JSON writes it (RFC 8259, section 6), in ASCII digits: the one syntax every input takes."""

@@ -149,10 +149,10 @@ def _csv_example(operation: ComputingPath, body: dict[str, Any]) -> str:
 
 
 def _computing_paths(spec: APISpec, operation: ComputingPath) -> None:
-    get_answer = shown(_rounded(operation.compute(operation.parse(operation.example, "query"))), ())
+    get_answer = shown(_rounded(operation.answer(operation.parse(operation.example, "query"))), ())
     array_body = _array_example(operation)
     post_inputs = operation.parse(array_body, "body")
-    post_answer = _rounded(operation.compute(post_inputs))
+    post_answer = _rounded(operation.answer(post_inputs))
     text = {"type": "string"}
     tag = operation.path.split("/")[2]
     common = {"tags": [tag], "summary": operation.summary, "description": operation.description}

@@ -2,14 +2,17 @@
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Any
 
 import numpy as np
 from marshmallow import ValidationError, fields
 
-from service.api.numbers import Numbers, finite_numbers
-from service.physics.units import Dimension, Reference, Unit, codes, resolve_unit, spellings
+from service.api.numbers import finite_numbers
+from service.fluids.cautions import Kind, Shown
+from service.physics.array_blocks import Numbers
+from service.physics.units import Dimension, Reference, Unit, codes, default_unit, resolve_unit, spellings
 
 
 @dataclass(frozen=True)
@@ -123,3 +126,18 @@ def _plain(value: Numbers) -> Numbers:
 def format_value(value_si: float, unit: Unit, digits: int = 6) -> str:
     """An SI value shown in ``unit`` for a message, e.g. ``'0.611657 kPa'``."""
     return f"{float(unit.from_si(value_si)):.{digits}g} {unit.code}"
+
+
+def unit_of(kind: Kind, units: Mapping[str, Unit]) -> Unit:
+    """The request's unit for numbers of ``kind`` (a temperature difference: the temperature unit's scale)."""
+    dimension = "temperature" if kind == "temperature difference" else kind
+    return units.get(dimension) or default_unit(dimension)
+
+
+def number_text(number: Shown, units: Mapping[str, Unit]) -> str:
+    """A number of a message in the request's unit: ``0.611657 kPa``; a temperature difference in K or degR."""
+    unit = unit_of(number.kind, units)
+    if number.kind == "temperature difference":
+        shown = difference(number.value, unit)
+        return f"{shown['value']:.{number.digits}g} {shown['unit']}"
+    return format_value(number.value, unit, number.digits)

@@ -1,50 +1,22 @@
-"""The domain's refusals and cautions, in the request's own units.
+"""The domain's refusals as RFC 9457 problems, in the request's own units.
 
-The domain states its limits and the numbers in its cautions in SI (:mod:`service.fluids.limits`,
-:mod:`service.fluids.cautions`); here they become RFC 9457 problems and warning texts that show
-each number in the unit the request uses for its kind.
+The domain states its limits in SI (:mod:`service.fluids.limits`); here each refused value and the
+limit it passes are shown in the unit the request uses for its kind.
 """
 
 from __future__ import annotations
 
 from collections.abc import Mapping
-from typing import Any
 
 import numpy as np
 
 from service.api.problems import Problem
-from service.api.quantity_fields import format_value
-from service.fluids.cautions import Caution, Kind, Shown, Warnings
+from service.api.quantity_fields import format_value, unit_of
 from service.fluids.limits import OutOfRange, Refusal
-from service.fluids.questions import Answer
 from service.physics import site
-from service.physics.units import Unit, default_unit
+from service.physics.units import Unit
 
 _MAX_LISTED = 10
-
-
-def unit_of(kind: Kind, units: Mapping[str, Unit]) -> Unit:
-    """The request's unit for numbers of ``kind`` (a temperature difference: the temperature unit's scale)."""
-    dimension = "temperature" if kind == "temperature difference" else kind
-    return units.get(dimension) or default_unit(dimension)
-
-
-def shown(number: Shown, units: Mapping[str, Unit]) -> str:
-    """A number of a message in the request's unit: ``0.611657 kPa``; a temperature difference in K or degR."""
-    unit = unit_of(number.kind, units)
-    if number.kind == "temperature difference":
-        return f"{number.value / unit.scale:.{number.digits}g} {'K' if unit.scale == 1.0 else 'degR'}"
-    return format_value(number.value, unit, number.digits)
-
-
-def in_units(warnings: Warnings, units: Mapping[str, Unit]) -> Warnings:
-    """The warnings with the numbers in their texts shown in the request's units."""
-    return [
-        Caution(w.text.format(**{k: shown(v, units) for k, v in w.shown.items()}), w.points)
-        if isinstance(w, Caution) and w.shown
-        else w
-        for w in warnings
-    ]
 
 
 def problem(refusal: Refusal, units: Mapping[str, Unit]) -> Problem:
@@ -100,12 +72,3 @@ def _air_pressure_hint(values: np.ndarray, bad: np.ndarray, unit: Unit) -> str:
     if not readings:
         return ""
     return f"; as a barometer reading, {number:g} would be {', or '.join(readings)}: check the unit it was sent in"
-
-
-def provenance(answer: Answer, units: Mapping[str, Unit]) -> dict[str, Any]:
-    """``method``, ``source`` and ``warnings`` of an answer from the equations it used."""
-    return {
-        "method": "; ".join(method for method, _ in answer.citations),
-        "source": "; ".join(source for _, source in answer.citations),
-        "warnings": in_units(answer.warnings, units),
-    }

@@ -8,7 +8,7 @@ in Python's shortest round-trip form, so both parse back to the JSON values exac
 
 from __future__ import annotations
 
-from collections.abc import Iterable, Sequence
+from collections.abc import Iterable, Mapping, Sequence
 from typing import Any
 
 import numpy as np
@@ -17,7 +17,10 @@ from flask import Response, request
 
 from service.api.json_provider import encode
 from service.api.numbers import significant
-from service.fluids.cautions import Caution
+from service.api.quantity_fields import number_text
+from service.fluids.cautions import Caution, Warnings
+from service.fluids.questions import Answer
+from service.physics.units import Unit
 
 MEDIA_TYPES = {"json": "application/json", "text": "text/plain", "csv": "text/csv"}
 
@@ -183,3 +186,22 @@ def _listed(value: Any) -> list[Any]:
     if isinstance(value, np.ndarray):
         return value.tolist()
     return value if isinstance(value, list) else [value]
+
+
+def in_units(warnings: Warnings, units: Mapping[str, Unit]) -> Warnings:
+    """The warnings with the numbers in their texts shown in the request's units."""
+    return [
+        Caution(w.text.format(**{k: number_text(v, units) for k, v in w.shown.items()}), w.points)
+        if isinstance(w, Caution) and w.shown
+        else w
+        for w in warnings
+    ]
+
+
+def provenance(answer: Answer, units: Mapping[str, Unit]) -> dict[str, Any]:
+    """``method``, ``source`` and ``warnings`` of an answer from the equations it used."""
+    return {
+        "method": "; ".join(method for method, _ in answer.citations),
+        "source": "; ".join(source for _, source in answer.citations),
+        "warnings": in_units(answer.warnings, units),
+    }

@@ -1,4 +1,5 @@
-"""Reading a POST body strictly: a JSON object, or a CSV table of numbers (and labels).
+"""Reading a request strictly: the query string (each parameter once), a JSON object body, or a CSV table
+of numbers (and labels).
 
 Every refusal is a 400 that says what is wrong and where: an empty body, a number out of double
 range, a key given twice, a CSV cell by its row and column. A byte-order mark, which spreadsheets
@@ -15,6 +16,7 @@ from typing import Any
 
 import numpy as np
 import orjson
+from flask import request
 from marshmallow import ValidationError
 from numpy.typing import NDArray
 
@@ -181,3 +183,13 @@ def _commas_per_row(rows: str) -> NDArray[np.intp]:
     commas = np.flatnonzero(data == ord(","))
     line_ends = np.append(np.flatnonzero(data == ord("\n")), data.size)
     return np.diff(np.searchsorted(commas, line_ends), prepend=0)
+
+
+def query_args() -> dict[str, str]:
+    """The query string as a dict; a parameter given twice is refused."""
+    pairs = list(request.args.items(multi=True))
+    args = dict(pairs)
+    if len(args) < len(pairs):
+        repeated = next(key for key in args if len(request.args.getlist(key)) > 1)
+        raise invalid(repeated, "given more than once")
+    return args

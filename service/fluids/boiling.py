@@ -6,13 +6,25 @@ liquid mixture are to implement it next. Everything is SI: temperature [K], pres
 
 from __future__ import annotations
 
+from collections.abc import Callable
+from dataclasses import dataclass, field
 from typing import Protocol
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-from service.fluids.fluid import LiquidDensity
 from service.fluids.limits import Limits
+
+
+@dataclass(frozen=True)
+class LiquidDensity:
+    """A saturated-liquid density correlation [kg/m3] with its stated range [K] and citation."""
+
+    density: Callable[[ArrayLike], NDArray[np.float64]] = field(repr=False)
+    t_min: float
+    t_max: float
+    method: str
+    source: str
 
 
 class Boiling(Protocol):

@@ -15,6 +15,7 @@ import numpy as np
 
 from service.fluids.fluid import Fluid
 from service.fluids.forms import VAPOR_PRESSURE_FORMS, equation_from_entry
+from service.physics.units import ATMOSPHERE
 from service.physics.vapor_pressure import ExtendedAntoine
 
 GAS_CONSTANT = 8.314462618
@@ -92,7 +93,7 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
             f"({TROUTON_ENTROPY:g} J/(mol K) times the boiling point): often within 10 % for non-polar liquids, "
             "too low for hydrogen-bonded ones such as water and alcohols. Send enthalpy_of_vaporization if known."
         )
-        if abs(pressure / 101_325.0 - 1.0) > 0.05:
+        if abs(pressure / ATMOSPHERE - 1.0) > 0.05:
             notes.append("Trouton's rule holds at the normal boiling point; this boiling point is not at 1 atm.")
     slope = enthalpy / GAS_CONSTANT
     equation = ExtendedAntoine(a=math.log(pressure) + slope / temperature, b=-slope)

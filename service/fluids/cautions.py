@@ -27,13 +27,24 @@ class Caution:
     """A warning about some points of an answer.
 
     ``points`` is a boolean mask that broadcasts to the answer's shape (a single answer: a single
-    boolean); a plain string among an answer's warnings concerns every point. ``text`` may hold
-    ``{name}`` fields, filled with the numbers of ``shown`` in the caller's units.
+    boolean); a plain string among an answer's warnings concerns every point. With ``shown``, ``text``
+    is a template whose ``{name}`` fields take those numbers in the caller's units: any other text in
+    it goes through :func:`literal`.
     """
 
     text: str
     points: NDArray[np.bool_] | np.bool_ | bool = True
     shown: Mapping[str, Shown] = field(default_factory=dict)
+
+
+def literal(text: str) -> str:
+    """``text`` as it reads inside a message template: braces doubled, so that a name holding them (a fluid a
+    caller named ``{x}``, say) comes out as written when the template is filled.
+
+    >>> literal("{x}").format()
+    '{x}'
+    """
+    return text.replace("{", "{{").replace("}", "}}")
 
 
 Warnings = list[str | Caution]

@@ -8,28 +8,18 @@ temperature [K], pressure [Pa], density [kg/m3].
 from __future__ import annotations
 
 import math
-from collections.abc import Callable
 from dataclasses import dataclass, field
 from functools import cached_property
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from service.fluids.boiling import LiquidDensity
+from service.fluids.cautions import literal
 from service.fluids.limits import Limit, Limits
 from service.physics.inverse_table import InverseTable, inverse_table
 from service.physics.units import ATMOSPHERE
 from service.physics.vapor_pressure import VaporPressureEquation
-
-
-@dataclass(frozen=True)
-class LiquidDensity:
-    """A saturated-liquid density correlation [kg/m3] with its stated range [K] and citation."""
-
-    density: Callable[[ArrayLike], NDArray[np.float64]] = field(repr=False)
-    t_min: float
-    t_max: float
-    method: str
-    source: str
 
 
 @dataclass(frozen=True)
@@ -113,36 +103,38 @@ class Fluid:
     def boiling_pressure_limits(self) -> Limits:
         """Where the fluid boils [Pa]: between its triple-point and critical pressures, within its equation's
         stated range unless extrapolated."""
+        name, below = literal(self.name), literal(self._below_triple(liquid=False))
         return Limits(
             (
                 Limit(
                     self.triple_pressure,
                     self.critical_pressure,
-                    f"the triple-point pressure of {self.name}, {{limit}}: {self._below_triple(liquid=False)}",
-                    f"the critical pressure of {self.name}, {{limit}}: above it liquid and vapor no longer differ",
+                    f"the triple-point pressure of {name}, {{limit}}: {below}",
+                    f"the critical pressure of {name}, {{limit}}: above it liquid and vapor no longer differ",
                 ),
             ),
             (self.p_min, self.p_max),
             self.pressure_limits,
-            f"the {self.method} for {self.name}",
+            literal(f"the {self.method} for {self.name}"),
         )
 
     @cached_property
     def liquid_temperature_limits(self) -> Limits:
         """Where the fluid has a vapor pressure over its liquid [K]: between its triple and critical points,
         within its equation's stated range unless extrapolated."""
+        name, below = literal(self.name), literal(self._below_triple(liquid=True))
         return Limits(
             (
                 Limit(
                     self.triple_temperature,
                     self.critical_temperature,
-                    f"the triple-point temperature of {self.name}, {{limit}}: {self._below_triple(liquid=True)}",
-                    f"the critical temperature of {self.name}, {{limit}}: above it there is no liquid",
+                    f"the triple-point temperature of {name}, {{limit}}: {below}",
+                    f"the critical temperature of {name}, {{limit}}: above it there is no liquid",
                 ),
             ),
             self.stated_range,
             self.temperature_limits,
-            f"the {self.method} for {self.name}",
+            literal(f"the {self.method} for {self.name}"),
         )
 
     def _below_triple(self, liquid: bool) -> str:

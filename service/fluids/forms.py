@@ -22,7 +22,7 @@ import numpy as np
 from marshmallow import ValidationError, fields, validate
 from numpy.typing import ArrayLike, NDArray
 
-from service.fluids.fluid import LiquidDensity
+from service.fluids.boiling import LiquidDensity
 from service.physics import water
 from service.physics.liquid_density import Dippr105
 from service.physics.units import Dimension, codes, resolve_unit

@@ -90,7 +90,8 @@ def refuse_outside(
 
 @dataclass(frozen=True)
 class Limit:
-    """A band an input must lie in [SI], with the reason for each end (``{limit}`` marks the number)."""
+    """A band an input must lie in [SI], with the reason for each end: a template where ``{limit}`` marks the
+    number and any name goes through :func:`~service.fluids.cautions.literal`."""
 
     low: Bound
     high: Bound
@@ -104,7 +105,8 @@ class Limits:
 
     ``exists``: bands outside which it has no answer at all (below the triple point, above the critical
     point, beyond a solubility); ``stated``: the equation's stated range; ``reach``: as far as it may be
-    extrapolated; ``equation``: the equation's name in messages ("the Wagner equation for water").
+    extrapolated; ``equation``: the equation's name in message templates ("the Wagner equation for water"),
+    through :func:`~service.fluids.cautions.literal`.
     """
 
     exists: tuple[Limit, ...]

@@ -12,9 +12,8 @@ from dataclasses import dataclass, field
 import numpy as np
 from numpy.typing import NDArray
 
-from service.fluids.boiling import Boiling
-from service.fluids.cautions import Caution, Shown, Warnings
-from service.fluids.fluid import LiquidDensity
+from service.fluids.boiling import Boiling, LiquidDensity
+from service.fluids.cautions import Caution, Shown, Warnings, literal
 from service.fluids.limits import Refusal, any_of, check_limits, refuse_outside
 from service.fluids.site_pressure import (
     LocalPressure,
@@ -25,13 +24,13 @@ from service.fluids.site_pressure import (
     sea_level_pressure,
 )
 from service.physics import atmosphere, hydrostatics
-
-Numbers = NDArray[np.float64] | np.float64
+from service.physics.array_blocks import Numbers
 
 NEAR_CRITICAL = 0.98
-"""Warn above this fraction of the critical temperature."""
+"""Warn above this fraction of the critical temperature (common practice, no source)."""
 DEFAULT_TOLERANCE = 0.1
-"""Within this many kelvin of the saturation temperature a liquid counts as saturated."""
+"""Within this many kelvin of the saturation temperature a liquid counts as saturated: about the accuracy of a
+good process thermometer (common practice, no source)."""
 COVERAGE = 2.0
 """With a pressure uncertainty u, the saturated band widens by k u, k = 2: about 95 % coverage for a normal
 distribution (JCGM 100:2008, the GUM, section 6.3)."""
@@ -91,12 +90,16 @@ class Margin(BoilingPoint):
 
 @dataclass
 class VaporPressure(Answer):
+    """The vapor pressure [Pa] of a liquid at a temperature, and its slope dp/dT [Pa/K]."""
+
     pressure: Numbers | None = None
     slope: Numbers | None = None
 
 
 @dataclass
 class Elevation(Answer):
+    """The standard-atmosphere elevation [m] of a pressure [Pa]."""
+
     elevation: Numbers | None = None
     pressure: Numbers | None = None
 
@@ -122,7 +125,7 @@ def boiling_point(
     """The boiling point at the pressure ``readings`` describe, ``depth`` [m] below the surface if given;
     with ``pressure_uncertainty`` [Pa], the boiling point's standard uncertainty from the reading alone."""
     answer = BoilingPoint()
-    _boil(answer, boiling, readings, extrapolate, depth, pressure_uncertainty)
+    _find_boiling_point(answer, boiling, readings, extrapolate, depth, pressure_uncertainty)
     answer.cite(boiling, answer.depth_density, atmosphere_caution(answer.local, answer.slope))
     return answer
 
@@ -140,7 +143,7 @@ def saturation_margin(
     ``saturated`` within ``tolerance`` [K] (widened by k = 2 times the saturation temperature's
     uncertainty), ``subcooled`` below it, ``superheated`` above."""
     answer = Margin(measured=measured, tolerance=DEFAULT_TOLERANCE if tolerance is None else tolerance)
-    _boil(answer, boiling, readings, extrapolate, depth, pressure_uncertainty)
+    _find_boiling_point(answer, boiling, readings, extrapolate, depth, pressure_uncertainty)
     band = answer.tolerance if answer.uncertainty is None else answer.tolerance + COVERAGE * answer.uncertainty
     answer.margin = margin = answer.temperature - measured
     answer.state = np.where(margin > band, "subcooled", np.where(margin < -band, "superheated", "saturated"))
@@ -148,7 +151,7 @@ def saturation_margin(
     return answer
 
 
-def _boil(
+def _find_boiling_point(
     answer: BoilingPoint,
     boiling: Boiling,
     readings: PressureReadings,
@@ -190,7 +193,7 @@ def vapor_pressure(boiling: Boiling, temperature: Numbers, extrapolate: bool = F
 
 
 def elevation(
-    boiling: Boiling | None,
+    boiling: Boiling,
     pressure: Numbers | None = None,
     boiling_point: Numbers | None = None,
     sea_level: Numbers | None = None,
@@ -210,7 +213,7 @@ def elevation(
             boiling.liquid_temperature_limits, "boiling_point", "temperature", boiling_point, extrapolate
         )
         pressure = boiling.saturation_pressure(boiling_point)
-    sea_level = sea_level_pressure(PressureReadings(sea_level_pressure=sea_level))
+    sea_level = sea_level_pressure(sea_level)
     scale = sea_level / atmosphere.SEA_LEVEL_PRESSURE
     refuse_outside(
         "pressure",
@@ -244,7 +247,7 @@ def npsh_available(
     density = required_density(boiling)
     outside = (temperature < density.t_min) | (temperature > density.t_max)
     if any_of(outside):
-        where = f"the stated range of the {density.method} for {boiling.name}, {{limit}}"
+        where = f"the stated range of the {literal(density.method)} for {literal(boiling.name)}, {{limit}}"
         if not extrapolate:
             refuse_outside("temperature", "temperature", temperature, density.t_min, density.t_max, where, where)
         answer.warnings.append(
@@ -291,8 +294,8 @@ def near_critical(boiling: Boiling, temperature: Numbers) -> Warnings:
         return []
     return [
         Caution(
-            f"Within 2 % of the critical temperature of {boiling.name} ({{critical}}): properties change steeply "
-            "there and small errors in pressure or temperature grow large.",
+            f"Within 2 % of the critical temperature of {literal(boiling.name)} ({{critical}}): properties change "
+            "steeply there and small errors in pressure or temperature grow large.",
             near,
             {"critical": Shown(boiling.critical_temperature, "temperature")},
         )
@@ -337,6 +340,7 @@ def standard_air(elevation: Numbers, sea_level: Numbers | None = None) -> Air:
         density=atmosphere.density_at_elevation(elevation, scale_to),
         geopotential_height=atmosphere.geopotential_height(elevation),
     )
+    answer.citations.append((atmosphere.METHOD, atmosphere.SOURCE))
     if sea_level is None:
         answer.warnings.append(STANDARD_DAY_WARNING)
     return answer

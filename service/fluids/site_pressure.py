@@ -11,16 +11,17 @@ from __future__ import annotations
 from dataclasses import dataclass, fields
 
 import numpy as np
-from numpy.typing import NDArray
 
 from service.fluids.cautions import Caution, Shown
 from service.fluids.limits import Refusal, refuse_outside
 from service.physics import atmosphere, site
+from service.physics.array_blocks import Numbers
 
 WEATHER_SPREAD = 0.03
 """Typical departure of real barometric pressure from the standard atmosphere (common practice, no source)."""
 SEA_LEVEL_PRESSURE_RANGE = (85e3, 110e3)
-"""Plausible reduced sea-level pressures [Pa]; the recorded extremes lie inside it."""
+"""Plausible reduced sea-level pressures [Pa]: the recorded extremes, about 87 kPa and 108.4 kPa (WMO, recalled
+from memory), lie inside it."""
 
 STANDARD_ATMOSPHERE_WARNING = (
     "The local atmospheric pressure is the U.S. Standard Atmosphere 1976 value for the given "
@@ -32,8 +33,6 @@ SCALED_ATMOSPHERE_WARNING = (
     "the station's sea-level pressure: closer to today's weather than a standard day, but not a measurement "
     "on site. Send barometric_pressure for a measured value."
 )
-
-Numbers = NDArray[np.float64] | np.float64
 
 
 @dataclass(frozen=True)
@@ -67,9 +66,8 @@ class LocalPressure:
     source: str | None = None
 
 
-def sea_level_pressure(readings: PressureReadings) -> Numbers | float:
-    """The readings' sea-level pressure [Pa], checked for plausibility, or the standard 101 325 Pa."""
-    sea_level = readings.sea_level_pressure
+def sea_level_pressure(sea_level: Numbers | None) -> Numbers | float:
+    """A weather station's sea-level pressure [Pa], checked for plausibility, or the standard 101 325 Pa."""
     if sea_level is None:
         return atmosphere.SEA_LEVEL_PRESSURE
     low, high = SEA_LEVEL_PRESSURE_RANGE
@@ -122,7 +120,7 @@ def local_atmosphere(readings: PressureReadings) -> Numbers | None:
         "the bottom of the standard atmosphere, {limit}",
         "the top of the standard atmosphere, {limit}",
     )
-    return atmosphere.pressure_at_elevation(elevation, sea_level_pressure(readings))
+    return atmosphere.pressure_at_elevation(elevation, sea_level_pressure(readings.sea_level_pressure))
 
 
 def local_pressure(readings: PressureReadings) -> LocalPressure:

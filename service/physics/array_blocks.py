@@ -20,6 +20,9 @@ from functools import wraps
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+Numbers = NDArray[np.float64] | float
+"""An array of numbers, or a single number: a numpy scalar (a float, too) as it travels through the service."""
+
 BLOCK = 16_384
 """Points per block: 128 KiB per float64 temporary, inside a typical L2 cache."""
 

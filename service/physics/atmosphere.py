@@ -133,26 +133,36 @@ def temperature_at_elevation(elevation: ArrayLike) -> NDArray[np.float64]:
 
 
 def _molecular_temperature(h: NDArray) -> NDArray:
-    """Molecular-scale temperature T_M [K] at geopotential height [m'], eq. (23)."""
+    """Molecular-scale temperature T_M [K] at geopotential height [m'], eq. (23): Tb + Lb (H - Hb), written
+    (Tb - Lb Hb) + Lb H."""
     i = _layer_of_height(h)
-    return _BASE_T[i] + _LAPSE[i] * (h - _BASE_HEIGHT[i])
+    return (_BASE_T[i] - _LAPSE[i] * _BASE_HEIGHT[i]) + _LAPSE[i] * h
 
 
 def _layer_pressure(layer: int, h: NDArray) -> NDArray:
-    """P [Pa] at geopotential height ``h`` [m'] in ``layer``: eq. (33a) where the lapse rate is not zero, (33b)
-    where it is."""
-    base_t, base_p, lapse, dh = _BASE_T[layer], _BASE_P[layer], _LAPSE[layer], h - _BASE_HEIGHT[layer]
+    """P [Pa] at geopotential height ``h`` [m'] in ``layer``.
+
+    Eq. (33a) where the lapse rate Lb is not zero, P = Pb (Tb / (Tb + Lb (H - Hb)))**(k/Lb), with k = g0 M0 / R*,
+    written ln(P/Pb) = (-k/Lb) ln((Tb - Lb Hb)/Tb + (Lb/Tb) H); eq. (33b) where it is zero,
+    ln(P/Pb) = -k (H - Hb) / Tb, written (-k/Tb) H + (k/Tb) Hb.
+    """
+    lapse, base_t = _LAPSE[layer], _BASE_T[layer]
     if lapse == 0.0:
-        return base_p * np.exp(-_K * dh / base_t)
-    return base_p * np.power(base_t / (base_t + lapse * dh), _K / lapse)
+        slope = -_K / base_t
+        ln_ratio = slope * h + -slope * _BASE_HEIGHT[layer]
+    else:
+        ln_ratio = -_K / lapse * np.log((base_t - lapse * _BASE_HEIGHT[layer]) / base_t + lapse / base_t * h)
+    return _BASE_P[layer] * np.exp(ln_ratio)
 
 
 def _layer_height(layer: int, p: NDArray) -> NDArray:
-    """Geopotential height [m'] of standard pressure ``p`` [Pa] in ``layer``: eqs. (33a) and (33b) solved for H."""
-    base_t, ln_ratio, lapse = _BASE_T[layer], np.log(p / _BASE_P[layer]), _LAPSE[layer]
+    """Geopotential height [m'] of standard pressure ``p`` [Pa] in ``layer``: eqs. (33a) and (33b) solved for H,
+    H = Hb + (Tb/Lb) (exp((-Lb/k) ln(P/Pb)) - 1), or Hb + (-Tb/k) ln(P/Pb) where Lb is zero."""
+    lapse, base_t = _LAPSE[layer], _BASE_T[layer]
+    ln_ratio = np.log(p * (1.0 / _BASE_P[layer]))
     if lapse == 0.0:
-        return _BASE_HEIGHT[layer] - base_t / _K * ln_ratio
-    return _BASE_HEIGHT[layer] + base_t / lapse * np.expm1(-lapse / _K * ln_ratio)
+        return _BASE_HEIGHT[layer] + ln_ratio * (-base_t / _K)
+    return _BASE_HEIGHT[layer] + np.expm1(ln_ratio * (-lapse / _K)) * (base_t / lapse)
 
 
 @blockwise
@@ -213,6 +223,8 @@ PRESSURE_AT_MAX_ELEVATION = float(pressure_at_elevation(MAX_ELEVATION))
 
 MODEL = "U.S. Standard Atmosphere 1976"
 """The model's published name."""
+METHOD = "hydrostatic equation in layers of constant lapse rate, with geopotential height"
+"""How the model computes its profile."""
 SOURCE = (
     "NOAA, NASA and USAF, U.S. Standard Atmosphere, 1976, NOAA-S/T 76-1562, U.S. Government "
     "Printing Office, Washington D.C., 1976, eqs. (18), (23), (33a), (33b), (42) and Table 8"

@@ -23,7 +23,6 @@ class InverseTable:
     """
 
     def __init__(self, equation: VaporPressureEquation, low: float, high: float, intervals: int = 4096) -> None:
-        self.low, self.high = low, high
         ln_lo, self._ln_high = (float(v) for v in equation.ln_pressure(np.array([low, high])))
         self._step = math.sqrt(self._ln_high - ln_lo) / intervals
         self._end = float(intervals)

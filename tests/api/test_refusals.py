@@ -6,7 +6,6 @@ import numpy as np
 import pytest
 
 from service.api import refusals
-from service.fluids.cautions import Caution, Shown
 from service.fluids.limits import OutOfRange
 from service.physics.units import resolve_unit
 from tests.api.test_problems import problem
@@ -109,19 +108,6 @@ def test_a_refusal_in_si_reads_in_the_request_units() -> None:
     assert answer.errors == {"temperature": ["index 1: -99.67 degF is below the triple point, 32.018 degF"]}
 
 
-def test_numbers_in_cautions_read_in_the_request_units() -> None:
-    # A temperature difference of 0.5 K reads 0.9 degR in a Fahrenheit request (1 K = 1.8 degR, by definition).
-    units = {"temperature": resolve_unit("degF", "temperature"), "pressure": resolve_unit("kPa", "pressure")}
-    cautions = [
-        Caution("moves it by {spread}", True, {"spread": Shown(0.5, "temperature difference", 2)}),
-        Caution("below {p}", np.array([True, False]), {"p": Shown(611.657, "pressure")}),
-        "plain text",
-    ]
-    shown = refusals.in_units(cautions, units)
-    assert [getattr(c, "text", c) for c in shown] == ["moves it by 0.9 degR", "below 0.611657 kPa", "plain text"]
-    assert shown[1].points.tolist() == [True, False]
-
-
 def test_a_barometer_reading_in_the_wrong_unit_names_the_units_it_fits() -> None:
     refused = OutOfRange(
         "barometric_pressure",
@@ -134,3 +120,23 @@ def test_a_barometer_reading_in_the_wrong_unit_names_the_units_it_fits() -> None
     )
     detail = refusals.problem(refused, {"pressure": resolve_unit("Pa", "pressure")}).detail
     assert "1013 would be 101300 Pa in hPa or mbar" in detail
+
+
+@pytest.mark.parametrize("name", ["{oops}", "a } b {", "{0}"])
+def test_names_with_braces_read_as_written(client, name) -> None:
+    # A caller's name goes into message templates: its braces must come out as sent, never break the template.
+    fluid = {"boiling_point": 100, "name": name}
+    extrapolated = client.post("/v1/boiling-point", json={"fluid": fluid, "pressure": 1e-6, "extrapolate": True})
+    assert extrapolated.status_code == 200
+    assert any(name in w for w in extrapolated.get_json()["warnings"])
+    refused = client.post("/v1/boiling-point", json={"fluid": fluid, "pressure": 1e-6})
+    assert refused.status_code == 422 and name in refused.get_json()["detail"]
+    wagner = {
+        "equation": "wagner",
+        "name": name,
+        "coefficients": [-7.86, 1.84, -11.79, 22.68],
+        "exponents": [1, 1.5, 3, 3.5],
+    }
+    wagner |= {"critical_temperature": 373.946, "critical_pressure": 22064, "t_min": 10, "t_max": 373.9}
+    near = client.post("/v1/vapor-pressure", json={"fluid": wagner, "temperature": 370.0})
+    assert near.status_code == 200 and any(name in w for w in near.get_json()["warnings"])

@@ -1,6 +1,11 @@
 """Answers as JSON, plain text for terminals and CSV for arrays (``service.api.rendering``): both parse
 back to the JSON values; array warnings name the points they concern."""
 
+import numpy as np
+
+from service.api import rendering
+from service.fluids.cautions import Caution, Shown
+from service.physics.units import resolve_unit
 from tests.conftest import csv_answer
 
 
@@ -84,3 +89,16 @@ def test_a_tag_starting_with_a_hash_stays_a_row(client) -> None:
     payload = {"pressure": [90, 100], "tag": ["#1 drum", "#2 drum"]}
     notes, rows = csv_answer(client.post("/v1/boiling-point?format=csv", json=payload).get_data(as_text=True))
     assert [row["tag"] for row in rows] == ["#1 drum", "#2 drum"] and len(notes) == 3
+
+
+def test_numbers_in_cautions_read_in_the_request_units() -> None:
+    # A temperature difference of 0.5 K reads 0.9 degR in a Fahrenheit request (1 K = 1.8 degR, by definition).
+    units = {"temperature": resolve_unit("degF", "temperature"), "pressure": resolve_unit("kPa", "pressure")}
+    cautions = [
+        Caution("moves it by {spread}", True, {"spread": Shown(0.5, "temperature difference", 2)}),
+        Caution("below {p}", np.array([True, False]), {"p": Shown(611.657, "pressure")}),
+        "plain text",
+    ]
+    shown = rendering.in_units(cautions, units)
+    assert [getattr(c, "text", c) for c in shown] == ["moves it by 0.9 degR", "below 0.611657 kPa", "plain text"]
+    assert shown[1].points.tolist() == [True, False]

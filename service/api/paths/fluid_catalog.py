@@ -10,9 +10,9 @@ from marshmallow import Schema, fields
 from service.api import answer_schemas
 from service.api.answer_cache import cacheable
 from service.api.catalog_lookup import catalog, resolve_catalog_fluid
-from service.api.computing_path import query_args
 from service.api.openapi import GUARDED, NOT_MODIFIED, document_get, json_answer, problem_responses
 from service.api.quantity_fields import UnitField, difference, quantity
+from service.api.request_body import query_args
 from service.fluids.fluid import Fluid
 from service.physics.units import Unit, default_unit
 

@@ -13,7 +13,7 @@ from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_flui
 from service.api.numbers import Number
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, pressure_fields, readings
 from service.api.quantity_fields import DENSITY, difference, quantity
-from service.api.refusals import provenance
+from service.api.rendering import provenance
 from service.fluids import questions
 
 blueprint = Blueprint("margins", __name__)

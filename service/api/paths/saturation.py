@@ -11,7 +11,7 @@ from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, SITE_INPUTS, pressure_fields, readings
 from service.api.quantity_fields import difference, quantity, ratio
-from service.api.refusals import provenance
+from service.api.rendering import provenance
 from service.fluids import questions
 
 blueprint = Blueprint("saturation", __name__)

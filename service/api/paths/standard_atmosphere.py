@@ -10,6 +10,7 @@ from flask import Blueprint
 from service.api import answer_schemas
 from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.quantity_fields import DENSITY, format_value, quantity
+from service.api.rendering import provenance
 from service.fluids import questions
 from service.physics import atmosphere
 
@@ -32,9 +33,7 @@ def standard_atmosphere(inputs: Inputs) -> dict[str, Any]:
         "temperature": quantity(found.temperature, inputs.units["temperature"]),
         "density": quantity(found.density, DENSITY),
         "model": model,
-        "method": "hydrostatic equation in layers of constant lapse rate, with geopotential height",
-        "source": atmosphere.SOURCE,
-        "warnings": found.warnings,
+        **provenance(found, inputs.units),
     }
 
 
