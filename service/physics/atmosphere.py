@@ -18,6 +18,7 @@ scalars for single values.
 
 from __future__ import annotations
 
+import bisect
 from collections.abc import Callable
 
 import numpy as np
@@ -61,7 +62,8 @@ def _layer_bases() -> tuple[NDArray, NDArray]:
 
 
 _BASE_T, _BASE_P = _layer_bases()
-_UPPER_PRESSURES = _BASE_P[:0:-1]  # [Pa], ascending
+_UPPER_PRESSURES = _BASE_P[:0:-1].tolist()  # [Pa], ascending
+_UPPER_HEIGHTS = _BASE_HEIGHT[1:].tolist()  # [m'], ascending
 # Table 8: M/M0 against geometric elevation, 80 to 86 km; 1 below 80 km.
 _RATIO_Z = np.arange(80_000.0, 86_001.0, 500.0)
 _RATIO_M = np.array(
@@ -101,16 +103,21 @@ def geometric_elevation(height: ArrayLike) -> NDArray[np.float64]:
     return EARTH_RADIUS * h / (EARTH_RADIUS - h)
 
 
-def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | np.intp:
-    """Index of the layer holding each geopotential height [m']: how many upper bases lie at or below it."""
+def _layer_of_height(h: NDArray | float) -> NDArray[np.intp] | int:
+    """Index of the layer holding each geopotential height [m']: how many upper bases lie at or below it.
+
+    A single value is placed with ``bisect`` on a list, which costs a tenth of ``np.searchsorted`` on a scalar.
+    """
+    if isinstance(h, float):
+        return bisect.bisect_right(_UPPER_HEIGHTS, h)
     return np.searchsorted(_BASE_HEIGHT[1:], h, side="right")
 
 
 def _layer_by_layer(
-    layers: NDArray[np.intp] | np.intp, formula: Callable[[int, NDArray], NDArray], x: NDArray
+    layers: NDArray[np.intp] | int, formula: Callable[[int, NDArray], NDArray], x: NDArray | float
 ) -> NDArray:
     """``formula(layer, x)`` for the values of ``x`` in each layer of ``layers`` (a single value: its own layer)."""
-    if np.ndim(x) == 0:
+    if isinstance(x, float):
         return formula(int(layers), x)
     out = np.empty(np.shape(x))
     for layer in np.unique(layers).tolist():
@@ -195,8 +202,11 @@ def density_at_elevation(
     return pressure_at_elevation(elevation, sea_level_pressure) * MOLAR_MASS_AIR / (GAS_CONSTANT * t_m)
 
 
-def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | np.intp:
-    """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure."""
+def _layer_of_pressure(p: NDArray | float) -> NDArray[np.intp] | int:
+    """Index of the layer holding each standard pressure [Pa]: how many upper bases have at least that pressure
+    (a single value placed with ``bisect``, as in :func:`_layer_of_height`)."""
+    if isinstance(p, float):
+        return len(_UPPER_PRESSURES) - bisect.bisect_left(_UPPER_PRESSURES, p)
     return len(_UPPER_PRESSURES) - np.searchsorted(_UPPER_PRESSURES, p, side="left")
 
 
