@@ -7,6 +7,7 @@ from flask import current_app
 from service.api.problems import Problem, invalid
 from service.fluids.catalog import Catalog
 from service.fluids.fluid import Fluid
+from service.fluids.not_pure import solution_or_mixture
 
 
 def catalog() -> Catalog:
@@ -19,6 +20,15 @@ def resolve_catalog_fluid(name: str) -> Fluid:
     if not name.strip():
         raise invalid("fluid", "is empty: give a catalog id, CAS number or alias (GET /v1/fluids lists them)")
     fluid = catalog().get(name)
+    what = None if fluid else solution_or_mixture(name, lambda part: catalog().get(part) is not None)
+    if what:
+        raise Problem(
+            404,
+            f"{name!r} names {what}, not a pure fluid. The catalog holds pure fluids only, and a solution or a "
+            "mixture does not boil where any of its components does: a dissolved solid raises the boiling point, "
+            "and a liquid mixture boils over a range. Do not use a pure component's answer for it.",
+            {"fluid": ["a solution or a mixture, not a pure fluid"]},
+        )
     if fluid is None:
         close = catalog().close_matches(name)
         hint = f" Closest matches: {', '.join(close)}." if close else ""

@@ -42,3 +42,22 @@ def test_unknown_fluid_on_a_computing_path(client) -> None:
 def test_fluid_by_alias_and_cas(client) -> None:
     for name in ("H2O", "7732-18-5", "Steam"):
         assert client.get(f"/v1/boiling-point?pressure=100&fluid={name}").get_json()["fluid"] == "water"
+
+
+@pytest.mark.parametrize("name", ["seawater", "brine", "50% glycol", "sugar solution", "ethanol/water", "salt water"])
+def test_a_solution_or_a_mixture_is_never_answered_with_a_pure_component(client, name: str) -> None:
+    # 'seawater' used to suggest water, '50% glycol' ethylene glycol: answers that would be wrong by the
+    # boiling-point elevation or the mixture's boiling range (common practice, no source).
+    responses = [client.get("/v1/boiling-point", query_string={"fluid": name, "pressure": 101.325})]
+    if "/" not in name:  # a slash cannot stand in a path segment
+        responses.append(client.get(f"/v1/fluids/{name}"))
+    for response in responses:
+        assert response.status_code == 404
+        body = response.get_json()
+        assert "not a pure fluid" in body["detail"] and "Closest matches" not in body["detail"]
+        assert body["errors"] == {"fluid": ["a solution or a mixture, not a pure fluid"]}
+
+
+def test_pure_names_that_look_like_mixtures_still_resolve(client) -> None:
+    for name, fluid_id in (("ethylene glycol", "ethylene-glycol"), ("2-propanol", "2-propanol"), ("R-134a", "r134a")):
+        assert client.get(f"/v1/fluids/{name}").get_json()["id"] == fluid_id
