@@ -20,7 +20,7 @@ def resolve_catalog_fluid(name: str) -> Fluid:
     if not name.strip():
         raise invalid("fluid", "is empty: give a catalog id, CAS number or alias (GET /v1/fluids lists them)")
     fluid = catalog().get(name)
-    what = None if fluid else solution_or_mixture(name, lambda part: catalog().get(part) is not None)
+    what = None if fluid else solution_or_mixture(name, _fluid_id)
     if what:
         raise Problem(
             404,
@@ -38,3 +38,9 @@ def resolve_catalog_fluid(name: str) -> Fluid:
             {"fluid": [f"unknown fluid {name!r}"]},
         )
     return fluid
+
+
+def _fluid_id(name: str) -> str | None:
+    """The id of the catalog fluid ``name`` denotes, if any."""
+    fluid = catalog().get(name)
+    return fluid.id if fluid else None

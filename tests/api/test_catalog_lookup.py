@@ -58,6 +58,7 @@ def test_a_solution_or_a_mixture_is_never_answered_with_a_pure_component(client,
         assert body["errors"] == {"fluid": ["a solution or a mixture, not a pure fluid"]}
 
 
-def test_pure_names_that_look_like_mixtures_still_resolve(client) -> None:
-    for name, fluid_id in (("ethylene glycol", "ethylene-glycol"), ("2-propanol", "2-propanol"), ("R-134a", "r134a")):
-        assert client.get(f"/v1/fluids/{name}").get_json()["id"] == fluid_id
+@pytest.mark.parametrize("name", ["propylene glycol", "ammonia 99.98 %", "water/steam"])
+def test_names_of_pure_fluids_outside_the_catalog_still_get_close_matches(client, name: str) -> None:
+    detail = client.get("/v1/boiling-point", query_string={"fluid": name, "pressure": 101.325}).get_json()["detail"]
+    assert "Closest matches" in detail and "not a pure fluid" not in detail
