@@ -18,6 +18,17 @@ from service.fluids.catalog import Catalog, load_catalog
 
 ROOT = Path(__file__).resolve().parents[1]
 
+WATER_ANTOINE = {
+    "A": 8.07131,
+    "B": 1730.63,
+    "C": 233.426,
+    "log_base": 10,
+    "pressure_unit": "mmHg",
+    "temperature_unit": "degC",
+}
+"""Antoine constants of water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C): the classic handbook set
+(e.g. Lange's Handbook of Chemistry; recalled from memory), 760.1 mmHg at 100 degC."""
+
 
 @pytest.fixture(scope="session")
 def openapi_document() -> dict[str, Any]:

@@ -4,20 +4,10 @@ as printed or one known boiling point, and definitions refused."""
 import pytest
 from CoolProp.CoolProp import PropsSI
 
-# Antoine constants of water, 1-100 degC, log10(p/mmHg) = A - B/(t/degC + C): the classic
-# handbook set A = 8.07131, B = 1730.63, C = 233.426 (e.g. Lange's Handbook; recalled from memory).
-WATER_ANTOINE = {
-    "equation": "antoine",
-    "A": 8.07131,
-    "B": 1730.63,
-    "C": 233.426,
-    "log_base": 10,
-    "pressure_unit": "mmHg",
-    "temperature_unit": "degC",
-    "t_min": 1,
-    "t_max": 100,
-    "name": "water (Antoine)",
-}
+from tests.conftest import WATER_ANTOINE as HANDBOOK_WATER
+
+# Water's handbook Antoine set (tests/conftest.py) as a caller sends it.
+WATER_ANTOINE = {"equation": "antoine", **HANDBOOK_WATER, "t_min": 1, "t_max": 100, "name": "water (Antoine)"}
 
 
 def test_antoine_reproduces_the_builtin_answer(client) -> None:

@@ -4,11 +4,10 @@ import pytest
 from CoolProp.CoolProp import PropsSI
 
 from service.fluids.caller_defined import fluid_from_boiling_point, fluid_from_equation
+from tests.conftest import WATER_ANTOINE
 
-# Water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C) (the classic handbook set, e.g. Lange's Handbook
-# of Chemistry; recalled from memory): 760.1 mmHg at 100 degC.
-ANTOINE = {"form": "antoine", "A": 8.07131, "B": 1730.63, "C": 233.426, "log_base": 10}
-WATER = ANTOINE | {"pressure_unit": "mmHg", "temperature_unit": "degC", "t_min": 274.15, "t_max": 373.15}
+# Water's handbook Antoine set (tests/conftest.py): 760.1 mmHg at 100 degC.
+WATER = {"form": "antoine", **WATER_ANTOINE, "t_min": 274.15, "t_max": 373.15}
 
 
 def test_an_equation_as_printed_answers_in_si() -> None:

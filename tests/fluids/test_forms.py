@@ -15,6 +15,7 @@ from service.fluids.forms import DENSITY_FORMS, VAPOR_PRESSURE_FORMS, Form, equa
 from service.fluids.schema import FluidEntrySchema
 from service.physics import water
 from service.physics.units import ATMOSPHERE, resolve_unit
+from tests.conftest import WATER_ANTOINE
 
 _MMHG = resolve_unit("mmHg", "pressure").scale
 """1 mmHg [Pa], the conventional value (see service/physics/units.py)."""
@@ -22,19 +23,9 @@ _MMHG = resolve_unit("mmHg", "pressure").scale
 # Per form: a valid table (SI where the form says nothing else) and a published value it must meet,
 # (T [K], p [Pa], relative tolerance). A new form needs its entry here: the tests below run over the registry.
 VAPOR_PRESSURE: dict[str, tuple[dict[str, Any], tuple[float, float, float]]] = {
-    # Water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C): the classic handbook set (e.g. Lange's
-    # Handbook of Chemistry; recalled from memory), 760.1 mmHg at 100 degC.
+    # Water's handbook Antoine set (tests/conftest.py): 760.1 mmHg at 100 degC.
     "antoine": (
-        {
-            "A": 8.07131,
-            "B": 1730.63,
-            "C": 233.426,
-            "log_base": 10,
-            "pressure_unit": "mmHg",
-            "temperature_unit": "degC",
-            "t_min": 274.15,
-            "t_max": 373.15,
-        },
+        WATER_ANTOINE | {"t_min": 274.15, "t_max": 373.15},
         (373.15, 760.1 * _MMHG, 1e-4),
     ),
     # IAPWS 1992 eq. (1) coefficients as a caller's Wagner table: water boils at 373.124 K at 1 atm

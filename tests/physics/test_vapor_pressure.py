@@ -7,13 +7,12 @@ import pytest
 
 from service.physics import water
 from service.physics.vapor_pressure import ExtendedAntoine, Wagner
+from tests.conftest import WATER_ANTOINE as HANDBOOK
 
-# Antoine constants of water, 1 to 100 degC, log10(p/mmHg) = A - B/(t/degC + C):
-# A = 8.07131, B = 1730.63, C = 233.426 (the classic handbook set, e.g. Lange's Handbook
-# of Chemistry; recalled from memory). Converted here to ln(p/Pa) and K.
+# Water's handbook Antoine set (tests/conftest.py), converted here to ln(p/Pa) and K.
 _MMHG = 133.322387415
 WATER_ANTOINE = ExtendedAntoine(
-    a=math.log(_MMHG) + math.log(10) * 8.07131, b=-math.log(10) * 1730.63, c=233.426 - 273.15
+    a=math.log(_MMHG) + math.log(10) * HANDBOOK["A"], b=-math.log(10) * HANDBOOK["B"], c=HANDBOOK["C"] - 273.15
 )
 
 
