@@ -33,7 +33,7 @@ import numpy as np
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
-from bench.arrays import post_csv, post_json
+from bench.arrays import post_csv, post_json, timed_posts
 from bench.common import ROOT, free_port, gunicorn, machine, write_section
 from bench.throughput import CASES, CONNECTIONS, DURATION, THREADS, ensure_wrk, run_wrk
 
@@ -90,17 +90,10 @@ def array_times(base: str, post: Callable[[http.client.HTTPConnection, np.ndarra
     conn = http.client.HTTPConnection(url.hostname, url.port, timeout=60)
     pressures = np.geomspace(1.0, 20_000.0, ARRAY_POINTS)  # kPa, as bench/arrays.py
     try:
-        for _ in range(2):
-            post(conn, pressures)
-        times = []
-        for _ in range(ARRAY_REPEATS):
-            t0 = time.perf_counter()
-            result = post(conn, pressures)
-            times.append(time.perf_counter() - t0)
-        assert result.size == ARRAY_POINTS
+        timed_posts(conn, post, pressures, 2)  # untimed: the connection and the server warm up
+        return timed_posts(conn, post, pressures, ARRAY_REPEATS)
     finally:
         conn.close()
-    return times
 
 
 def measure(servers: dict[str, tuple[str, int]], wrk: str) -> list[dict[str, dict[str, float]]]:
