@@ -13,7 +13,7 @@ from service.api.quantity_fields import UnitField
 from service.fluids.caller_defined import fluid_from_boiling_point, fluid_from_equation
 from service.fluids.fluid import Fluid
 from service.fluids.forms import VAPOR_PRESSURE_FORMS, Coefficient
-from service.physics.units import ATMOSPHERE, Unit
+from service.physics.units import Unit
 
 _NAME = fields.String(
     load_default="caller-defined fluid",
@@ -172,7 +172,7 @@ def resolve_fluid(value: str | dict[str, Any], units: dict[str, Unit]) -> Fluid:
             return fluid_from_boiling_point(
                 value["name"],
                 kelvin(value["boiling_point"]),
-                ATMOSPHERE if pressure is None else float(p_unit.to_si(pressure)),
+                None if pressure is None else float(p_unit.to_si(pressure)),
                 None if value.get("enthalpy_of_vaporization") is None else value["enthalpy_of_vaporization"] * 1e3,
             )
         form = _FORMS[value["equation"]]

@@ -69,8 +69,11 @@ def fluid_from_equation(name: str, vapor_pressure: Mapping[str, Any], critical: 
     )
 
 
-def fluid_from_boiling_point(name: str, temperature: float, pressure: float, enthalpy: float | None) -> Fluid:
-    """A fluid from one boiling point ``temperature`` [K] at ``pressure`` [Pa], by Clausius-Clapeyron.
+def fluid_from_boiling_point(
+    name: str, temperature: float, pressure: float | None = None, enthalpy: float | None = None
+) -> Fluid:
+    """A fluid from one boiling point ``temperature`` [K] at ``pressure`` [Pa] (default 1 atm), by
+    Clausius-Clapeyron.
 
     ln(p/p0) = -(dH/R)(1/T - 1/T0), with the enthalpy of vaporization dH [J/mol] taken
     constant; without it, Trouton's rule dH = 88 J/(mol K) * T0 estimates it.
@@ -79,6 +82,7 @@ def fluid_from_boiling_point(name: str, temperature: float, pressure: float, ent
     >>> round(float(toluene.saturation_temperature(10_000.0)) - 273.15, 1)  # reference EOS: 45.3 degC
     41.7
     """
+    pressure = ATMOSPHERE if pressure is None else pressure
     low, high = POINT_TEMPERATURES
     if not (low <= temperature <= high and math.isfinite(pressure) and pressure > 0):
         raise ValueError(f"the boiling point must lie between {low:g} K and {high:g} K, at a positive pressure")
