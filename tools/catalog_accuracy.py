@@ -142,7 +142,7 @@ def compare_catalog(
 ) -> list[Comparison]:
     """:func:`compare` for every catalog fluid that CoolProp covers, in catalog order."""
     names = coolprop_names_by_cas() if names_by_cas is None else names_by_cas
-    return [compare(f, names[f.cas], points, temperature_points) for f in catalog.fluids.values() if f.cas in names]
+    return [compare(f, names[f.cas], points, temperature_points) for f in catalog.entries.values() if f.cas in names]
 
 
 def coolprop_liquid_density(name: str, temperature: float) -> float:
@@ -184,7 +184,7 @@ def compare_density_catalog(
     names = coolprop_names_by_cas() if names_by_cas is None else names_by_cas
     return [
         compare_density(f, names[f.cas], points)
-        for f in catalog.fluids.values()
+        for f in catalog.entries.values()
         if f.cas in names and f.liquid_density is not None
     ]
 

@@ -86,14 +86,14 @@ def report(points: int, temperature_points: int = TEMPERATURE_POINTS) -> tuple[s
     catalog = load_catalog()
     names = coolprop_names_by_cas()
     results = compare_catalog(catalog, names, points, temperature_points)
-    missing = [f.id for f in catalog.fluids.values() if f.cas not in names]
+    missing = [f.id for f in catalog.entries.values() if f.cas not in names]
     densities = compare_density_catalog(catalog, names)
-    no_density = [f.id for f in catalog.fluids.values() if f.liquid_density is None]
+    no_density = [f.id for f in catalog.entries.values() if f.liquid_density is None]
     fixed = [
         "| fluid | equation | stated range K | T(101325 Pa) - normal_boiling_point, K "
         "| p(min(t_max, Tc)) / pc - 1, % | liquid density at T(101325 Pa), kg/m3 (density table range) |",
         "|---|---|---|---:|---:|---:|",
-        *(_fixed_point_row(f) for f in catalog.fluids.values()),
+        *(_fixed_point_row(f) for f in catalog.entries.values()),
     ]
     text = "\n".join(
         [

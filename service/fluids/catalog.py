@@ -11,7 +11,7 @@ import difflib
 import tomllib
 from collections.abc import Iterable, Mapping
 from pathlib import Path
-from typing import Any
+from typing import Any, Generic, Protocol, TypeVar
 
 from marshmallow import ValidationError
 
@@ -55,10 +55,10 @@ def fluid_from_entry(entry: Mapping[str, Any]) -> Fluid:
     )
 
 
-def _messages(errors: Mapping[str, Any], prefix: str = "") -> Iterable[str]:
+def messages(errors: Mapping[str, Any], prefix: str = "") -> Iterable[str]:
     for key, value in errors.items():
         if isinstance(value, Mapping):
-            yield from _messages(value, f"{prefix}{key}.")
+            yield from messages(value, f"{prefix}{key}.")
         else:
             yield f"{prefix}{key}: {'; '.join(map(str, value))}"
 
@@ -78,43 +78,56 @@ def load_file(path: Path) -> list[Fluid]:
         try:
             fluids.append(fluid_from_entry(FluidEntrySchema().load(raw)))
         except ValidationError as exc:
-            raise CatalogError(f"{label}: {' | '.join(_messages(exc.normalized_messages()))}") from exc
+            raise CatalogError(f"{label}: {' | '.join(messages(exc.normalized_messages()))}") from exc
     return fluids
 
 
-class Catalog:
-    """The fluids, found by id, CAS number, name or alias, case-insensitively."""
+class Named(Protocol):
+    """What the catalog finds an entry by."""
 
-    def __init__(self, fluids: Iterable[Fluid]) -> None:
-        self.fluids: dict[str, Fluid] = {}
+    id: str
+    name: str
+    formula: str
+    cas: str
+    aliases: tuple[str, ...]
+
+
+E = TypeVar("E", bound=Named)
+
+
+class Catalog(Generic[E]):
+    """Entries (fluids, or solutes) found by id, CAS number, name or alias, case-insensitively."""
+
+    def __init__(self, entries: Iterable[E], kind: str = "fluid") -> None:
+        self.entries: dict[str, E] = {}
         self._keys: dict[str, str] = {}
-        for fluid in fluids:
-            if fluid.id in self.fluids:
-                raise CatalogError(f"fluid id {fluid.id!r} is defined twice")
-            self.fluids[fluid.id] = fluid
-            for key in (fluid.id, fluid.cas, fluid.name, *fluid.aliases):
-                owner = self._keys.setdefault(_fold(key), fluid.id)
-                if owner != fluid.id:
-                    raise CatalogError(f"{key!r} names both {owner!r} and {fluid.id!r}")
+        for entry in entries:
+            if entry.id in self.entries:
+                raise CatalogError(f"{kind} id {entry.id!r} is defined twice")
+            self.entries[entry.id] = entry
+            for key in filter(None, (entry.id, entry.cas, entry.name, *entry.aliases)):  # a mixture has no CAS number
+                owner = self._keys.setdefault(_fold(key), entry.id)
+                if owner != entry.id:
+                    raise CatalogError(f"{key!r} names both {owner!r} and {entry.id!r}")
 
-    def get(self, name: str) -> Fluid | None:
-        """The fluid that ``name`` denotes, or None."""
-        fluid_id = self._keys.get(_fold(name))
-        return self.fluids[fluid_id] if fluid_id else None
+    def get(self, name: str) -> E | None:
+        """The entry that ``name`` denotes, or None."""
+        entry_id = self._keys.get(_fold(name))
+        return self.entries[entry_id] if entry_id else None
 
     def close_matches(self, name: str, count: int = 3) -> list[str]:
-        """Ids of up to ``count`` fluids whose names resemble ``name``, best first."""
+        """Ids of up to ``count`` entries whose names resemble ``name``, best first."""
         ids: list[str] = []
         for key in difflib.get_close_matches(_fold(name), self._keys, n=4 * count, cutoff=0.5):
             if self._keys[key] not in ids:
                 ids.append(self._keys[key])
         return ids[:count]
 
-    def search(self, query: str) -> list[Fluid]:
-        """Fluids whose id, CAS number, formula, name or an alias contains ``query``."""
+    def search(self, query: str) -> list[E]:
+        """Entries whose id, CAS number, formula, name or an alias contains ``query``."""
         q = _fold(query)
         return [
-            f for f in self.fluids.values() if any(q in _fold(k) for k in (f.id, f.cas, f.formula, f.name, *f.aliases))
+            e for e in self.entries.values() if any(q in _fold(k) for k in (e.id, e.cas, e.formula, e.name, *e.aliases))
         ]
 
 
@@ -127,7 +140,7 @@ def builtin_files() -> list[Path]:
     return sorted(DATA_DIR.glob("*.toml"))
 
 
-def load_catalog(files: Iterable[Path] | None = None, extra_files: Iterable[Path] = ()) -> Catalog:
+def load_catalog(files: Iterable[Path] | None = None, extra_files: Iterable[Path] = ()) -> Catalog[Fluid]:
     """The catalog from ``files`` (default: the built-in ones) plus operator files, validated alike.
 
     Every fluid's pressure limits and saturation-temperature table are computed here (about 0.1 s
@@ -136,6 +149,6 @@ def load_catalog(files: Iterable[Path] | None = None, extra_files: Iterable[Path
     """
     paths = [*(builtin_files() if files is None else files), *extra_files]
     catalog = Catalog(fluid for path in paths for fluid in load_file(Path(path)))
-    for fluid in catalog.fluids.values():
+    for fluid in catalog.entries.values():
         fluid.prepare()
     return catalog

@@ -23,6 +23,7 @@ from service.fluids.site_pressure import (
     local_pressure,
     sea_level_pressure,
 )
+from service.fluids.solution import Solution
 from service.physics import atmosphere, hydrostatics
 from service.physics.array_blocks import Numbers
 
@@ -50,6 +51,20 @@ class Answer:
 
     warnings: Warnings = field(default_factory=list)
     citations: list[tuple[str, str]] = field(default_factory=list)
+    boiling_point_elevation: Numbers | None = None
+    """For a solution: how far [K] it boils above pure water at the same pressure."""
+    water_activity: Numbers | None = None
+    """For a solution: its vapor pressure over pure water's at the same temperature [-]."""
+
+    def dissolved(self, boiling: Boiling, temperature: Numbers, extrapolate: bool, found: bool) -> None:
+        """For a solution, at ``temperature`` [K] (``found`` from a pressure, or given): refuse what its solute
+        equation does not answer, and add the boiling-point elevation, water activity and water's citation."""
+        if not isinstance(boiling, Solution):
+            return
+        check = boiling.check_boiling_point if found else boiling.check_concentration
+        self.warnings += check(temperature, extrapolate)
+        self.boiling_point_elevation, self.water_activity = boiling.elevation_and_activity(temperature)
+        self.citations.append((boiling.water.method, boiling.water.source))
 
     def cite(
         self, boiling: Boiling | None, density: LiquidDensity | None = None, air: str | Caution | None = None
@@ -172,6 +187,7 @@ def _find_boiling_point(
         )
         answer.warnings += check_limits(limits, "pressure", "pressure", answer.pressure, extrapolate)
     answer.temperature = boiling.saturation_temperature(answer.pressure)
+    answer.dissolved(boiling, answer.temperature, extrapolate, found=True)
     answer.slope = 1.0 / boiling.saturation_pressure_slope(answer.temperature)
     answer.warnings += near_critical(boiling, answer.temperature)
     if pressure_uncertainty is not None:
@@ -186,6 +202,7 @@ def vapor_pressure(boiling: Boiling, temperature: Numbers, extrapolate: bool = F
         boiling.liquid_temperature_limits, "temperature", "temperature", temperature, extrapolate
     )
     answer.warnings += near_critical(boiling, temperature)
+    answer.dissolved(boiling, temperature, extrapolate, found=False)
     answer.pressure = boiling.saturation_pressure(temperature)
     answer.slope = boiling.saturation_pressure_slope(temperature)
     answer.cite(boiling)
@@ -212,6 +229,7 @@ def elevation(
         answer.warnings += check_limits(
             boiling.liquid_temperature_limits, "boiling_point", "temperature", boiling_point, extrapolate
         )
+        answer.dissolved(boiling, boiling_point, extrapolate, found=False)
         pressure = boiling.saturation_pressure(boiling_point)
     sea_level = sea_level_pressure(sea_level)
     scale = sea_level / atmosphere.SEA_LEVEL_PRESSURE
@@ -237,16 +255,19 @@ def npsh_available(
     static_head: Numbers,
     friction_loss: Numbers | None = None,
     extrapolate: bool = False,
+    liquid_density: float | None = None,
 ) -> Suction:
     """NPSH available [m] for a liquid at ``temperature`` [K] whose surface lies ``static_head`` [m] above
-    the pump suction, under the pressure the readings describe, less ``friction_loss`` [m]."""
+    the pump suction, under the pressure the readings describe, less ``friction_loss`` [m]; the liquid's
+    density from its correlation, or ``liquid_density`` [kg/m3] as the caller measured it."""
     answer = Suction()
     answer.warnings += check_limits(
         boiling.liquid_temperature_limits, "temperature", "temperature", temperature, extrapolate
     )
-    density = required_density(boiling)
-    outside = (temperature < density.t_min) | (temperature > density.t_max)
-    if any_of(outside):
+    answer.dissolved(boiling, temperature, extrapolate, found=False)
+    density = None if liquid_density is not None else required_density(boiling, "liquid_density")
+    outside = False if density is None else (temperature < density.t_min) | (temperature > density.t_max)
+    if density is not None and any_of(outside):
         where = f"the stated range of the {literal(density.method)} for {literal(boiling.name)}, {{limit}}"
         if not extrapolate:
             refuse_outside("temperature", "temperature", temperature, density.t_min, density.t_max, where, where)
@@ -262,7 +283,8 @@ def npsh_available(
     refuse_outside("friction_loss", "length", friction_loss, 0.0, None, "zero, {limit}: a loss is not negative")
     answer.friction_loss = friction_loss
     answer.vapor_pressure = vapor = boiling.saturation_pressure(temperature)
-    answer.density = density.density(temperature)
+    # The caller's one density, shaped as the temperatures (a numpy scalar for one).
+    answer.density = density.density(temperature) if density is not None else temperature * 0.0 + liquid_density
     answer.npsh = npsh = hydrostatics.npsh_available(local.value, vapor, answer.density, static_head, friction_loss)
     boils = local.value < vapor
     if any_of(boils):
@@ -302,13 +324,15 @@ def near_critical(boiling: Boiling, temperature: Numbers) -> Warnings:
     ]
 
 
-def required_density(boiling: Boiling) -> LiquidDensity:
-    """The saturated-liquid density correlation; refused when none is known."""
+def required_density(boiling: Boiling, instead: str | None = None) -> LiquidDensity:
+    """The saturated-liquid density correlation; refused when none is known, naming the input that can
+    give the density ``instead`` where there is one."""
     if boiling.liquid_density is None:
+        hint = f" Give {instead}, the liquid's density in kg/m3, measured or from its supplier." if instead else ""
         raise Refusal(
             f"The catalog has no saturated-liquid density correlation for {boiling.name}; "
-            "heads of this liquid cannot be computed.",
-            {"fluid": ["no liquid density correlation"]},
+            f"heads of this liquid cannot be computed.{hint}",
+            {instead or "fluid": ["no liquid density correlation"]},
         )
     return boiling.liquid_density
 

@@ -61,7 +61,7 @@ class _TableSchema(Schema):
             check(data)
 
 
-class _FormTable(fields.Field):
+class FormTable(fields.Field):
     """A table loaded by the schema of the form it names, one of ``forms``; ``unknown`` (marshmallow's INCLUDE or
     RAISE) says what becomes of keys the form does not declare."""
 
@@ -106,8 +106,8 @@ class FluidEntrySchema(Schema):
     constants_source = fields.String(required=True, validate=validate.Length(min=10))
     lower_limit_note = fields.String(load_default=None, validate=validate.Length(min=10))
     notes = fields.List(fields.String(validate=validate.Length(min=10)), load_default=list)
-    vapor_pressure = _FormTable(VAPOR_PRESSURE_FORMS, unknown=INCLUDE, required=True)
-    liquid_density = _FormTable(DENSITY_FORMS, unknown=RAISE, load_default=None)
+    vapor_pressure = FormTable(VAPOR_PRESSURE_FORMS, unknown=INCLUDE, required=True)
+    liquid_density = FormTable(DENSITY_FORMS, unknown=RAISE, load_default=None)
 
     @validates("cas")
     def _cas(self, value: str, **_: Any) -> None:

@@ -53,8 +53,8 @@ def test_builtin_water_entry_uses_the_iapws_equation() -> None:
 
 def test_every_builtin_entry_is_well_formed() -> None:
     catalog = load_catalog()
-    assert "water" in catalog.fluids
-    for fluid in catalog.fluids.values():
+    assert "water" in catalog.entries
+    for fluid in catalog.entries.values():
         assert cas_check_digit_ok(fluid.cas), fluid.id
         low, high = fluid.stated_range
         assert fluid.triple_temperature <= low < high <= fluid.critical_temperature, fluid.id
@@ -169,7 +169,7 @@ def test_a_bad_operator_file_stops_start_up(tmp_path: Path, monkeypatch) -> None
 
 
 def test_every_fluid_table_reproduces_the_newton_inverse() -> None:
-    for fluid in load_catalog().fluids.values():
+    for fluid in load_catalog().entries.values():
         low, high = fluid.pressure_limits
         p = np.geomspace(low, high, 2001)
         exact = fluid.equation.temperature(p, *fluid.temperature_limits)
@@ -180,7 +180,7 @@ def test_every_fluid_gives_single_values_the_floats_of_an_array() -> None:
     # A single value and the same value inside an array must answer alike, to the bit, for every
     # catalog equation: saturation pressure, its slope, the inverse table, the liquid density.
     rng = np.random.default_rng(58)
-    for fluid in load_catalog().fluids.values():
+    for fluid in load_catalog().entries.values():
         t = rng.uniform(*fluid.stated_range, 60)
         p = fluid.saturation_pressure(t)
         checks = [

@@ -104,20 +104,20 @@ def _cases() -> list[object]:
 
 def test_known_misses_warn_in_every_answer() -> None:
     for fluid_id in KNOWN_MISSES:
-        assert any("CRC Handbook normal boiling point" in note for note in CATALOG.fluids[fluid_id].notes)
+        assert any("CRC Handbook normal boiling point" in note for note in CATALOG.entries[fluid_id].notes)
 
 
 def test_the_table_names_catalog_fluids() -> None:
-    assert set(CRC_95_NORMAL_BOILING_POINT) <= set(CATALOG.fluids)
+    assert set(CRC_95_NORMAL_BOILING_POINT) <= set(CATALOG.entries)
 
 
 @pytest.mark.parametrize(("fluid_id", "handbook"), _cases())
 def test_normal_boiling_point_matches_the_handbook(fluid_id: str, handbook: float) -> None:
-    computed = float(CATALOG.fluids[fluid_id].saturation_temperature(ATMOSPHERE))
+    computed = float(CATALOG.entries[fluid_id].saturation_temperature(ATMOSPHERE))
     assert computed == pytest.approx(handbook, abs=TOLERANCE)
 
 
 def test_carbon_dioxide_does_not_boil_at_one_atmosphere() -> None:
-    co2 = CATALOG.fluids["carbon-dioxide"]
+    co2 = CATALOG.entries["carbon-dioxide"]
     assert co2.normal_boiling_point is None
     assert co2.triple_pressure > ATMOSPHERE

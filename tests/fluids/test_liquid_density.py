@@ -57,13 +57,13 @@ def test_water_against_iapws95() -> None:
 
 def test_every_catalog_fluid_has_a_density_table() -> None:
     catalog = load_catalog()
-    missing = sorted(f.id for f in catalog.fluids.values() if f.liquid_density is None)
+    missing = sorted(f.id for f in catalog.entries.values() if f.liquid_density is None)
     assert missing == sorted(NO_DENSITY_TABLE)
 
 
 def test_density_tables_end_at_or_below_their_equation() -> None:
     # The schema refuses t_max above C; the loaded correlation must also answer finitely over its range.
-    for fluid in load_catalog().fluids.values():
+    for fluid in load_catalog().entries.values():
         density = fluid.liquid_density
         if density is None:
             continue

@@ -62,5 +62,5 @@ def test_no_name_of_the_catalog_reads_as_a_solution(catalog: Catalog) -> None:
         fluid = catalog.get(name)
         return fluid.id if fluid else None
 
-    keys = [key for fluid in catalog.fluids.values() for key in (fluid.id, fluid.name, fluid.cas, *fluid.aliases)]
+    keys = [key for fluid in catalog.entries.values() for key in (fluid.id, fluid.name, fluid.cas, *fluid.aliases)]
     assert [key for key in keys if solution_or_mixture(key, fluid_id)] == []

@@ -89,7 +89,7 @@ def _reference_boiling_point(fluid: Fluid, t_unit: Unit) -> dict[str, Any] | Non
 @blueprint.get("/v1/fluids")
 def list_fluids() -> Response:
     loaded = FluidSearchQuery().load(query_args())
-    found = catalog().search(loaded["q"]) if loaded.get("q") else list(catalog().fluids.values())
+    found = catalog().search(loaded["q"]) if loaded.get("q") else list(catalog().entries.values())
     units = _units(loaded)
     return cacheable({"count": len(found), "fluids": [summary(f, *units) for f in found]})
 

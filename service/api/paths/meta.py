@@ -33,9 +33,9 @@ def healthz() -> Response:
 @blueprint.get("/readyz")
 def readyz() -> Response:
     catalog = current_app.extensions.get("catalog")
-    if catalog is None or not catalog.fluids:
+    if catalog is None or not catalog.entries:
         raise Problem(503, "The fluid catalog is not loaded yet.")
-    return current_app.json.response({"status": "ready", "fluids": len(catalog.fluids)})
+    return current_app.json.response({"status": "ready", "fluids": len(catalog.entries)})
 
 
 @blueprint.get("/openapi.json")
