@@ -70,8 +70,27 @@ class Provenance(Schema):
     )
 
 
-class FluidAnswer(Provenance):
-    """An answer about one fluid."""
+Concentration = _quantity_schema("Concentration", {"enum": codes("concentration")})
+WaterActivity = _quantity_schema("WaterActivity", {"enum": ["1"], "description": "A ratio, without unit."})
+
+
+class Dissolved(Schema):
+    """What an answer for water with a solute adds."""
+
+    solute = fields.String(metadata={"description": "Id of the solute (see /v1/solutes), for a solution."})
+    concentration = fields.Nested(Concentration, metadata={"description": "The concentration sent."})
+    boiling_point_elevation = fields.Nested(
+        TemperatureDifference,
+        metadata={"description": "How far the solution boils above pure water at the same pressure."},
+    )
+    water_activity = fields.Nested(
+        WaterActivity,
+        metadata={"description": "The solution's vapor pressure over pure water's at the same temperature."},
+    )
+
+
+class FluidAnswer(Provenance, Dissolved):
+    """An answer about one fluid, or about water with a solute."""
 
     fluid = fields.String(required=True, metadata={"description": _FLUID})
 
@@ -161,7 +180,7 @@ class VaporPressureAnswer(FluidAnswer):
     sensitivity = fields.Nested(Slope, required=True, metadata={"description": "dp/dT along saturation."})
 
 
-class ElevationAnswer(Provenance):
+class ElevationAnswer(Provenance, Dissolved):
     elevation = fields.Nested(Length, required=True, metadata={"description": "Geometric elevation."})
     pressure = fields.Nested(Pressure, required=True, metadata={"description": "Absolute air pressure there."})
     fluid = fields.String(metadata={"description": f"{_FLUID} Present when the lookup went through a boiling point."})
@@ -240,6 +259,57 @@ class FluidDetail(FluidSummary):
 class FluidList(Schema):
     count = fields.Integer(required=True)
     fluids = fields.List(fields.Nested(FluidSummary), required=True)
+
+
+class CurvePoint(Schema):
+    temperature = fields.Nested(Temperature, required=True)
+    concentration = fields.Nested(Concentration, required=True)
+
+
+class ConcentrationCurve(Schema):
+    points = fields.List(
+        fields.Nested(CurvePoint),
+        required=True,
+        metadata={"description": "Straight lines between the points; beyond them, the nearest point's value."},
+    )
+    source = fields.String(required=True)
+
+
+class SoluteTemperatureRange(Schema):
+    temperature_min = fields.Nested(Temperature, required=True)
+    temperature_max = fields.Nested(Temperature, required=True)
+
+
+class SoluteSummary(Schema):
+    id = fields.String(required=True)
+    name = fields.String(required=True)
+    formula = fields.String(required=True)
+    cas = fields.String(required=True, allow_none=True, metadata={"description": "CAS registry number, if it has one."})
+    aliases = fields.List(fields.String(), required=True)
+    molar_mass = fields.Float(required=True, metadata={"description": "In kg/mol (sea salt: its mean)."})
+    concentration_units = fields.List(fields.String(), required=True)
+    range = fields.Nested(
+        SoluteTemperatureRange, required=True, metadata={"description": "The equation's stated temperature range."}
+    )
+    concentration_max = fields.Nested(
+        ConcentrationCurve,
+        required=True,
+        metadata={"description": "The top of the equation's stated concentration range along temperature."},
+    )
+    solubility = fields.Nested(
+        ConcentrationCurve,
+        required=True,
+        allow_none=True,
+        metadata={"description": "The most that dissolves along temperature; above it the solid crystallises."},
+    )
+    notes = fields.List(fields.String(), required=True)
+    method = fields.String(required=True, metadata={"description": "The water-activity equation's published name."})
+    source = fields.String(required=True)
+
+
+class SoluteList(Schema):
+    count = fields.Integer(required=True)
+    solutes = fields.List(fields.Nested(SoluteSummary), required=True)
 
 
 class Problem(Schema):

@@ -35,6 +35,7 @@ UNIT_DESCRIPTIONS = {
     "pressure": "Unit of every pressure in the request and the answer.",
     "temperature": "Unit of every temperature in the request and the answer.",
     "length": "Unit of every elevation and length in the request and the answer.",
+    "concentration": "Unit of `concentration`: wt% (the default), g/kg, mol/kg, or degBx for sucrose.",
 }
 
 

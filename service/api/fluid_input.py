@@ -1,4 +1,5 @@
-"""The ``fluid`` of a request: a catalog name, or in a POST body a fluid the caller defines."""
+"""What boils in a request: its ``fluid`` (a catalog name, or in a POST body a fluid the caller defines), or
+water with a ``solute`` at a ``concentration``."""
 
 from __future__ import annotations
 
@@ -6,13 +7,17 @@ from typing import Any
 
 from marshmallow import Schema, ValidationError, fields, validate, validates_schema
 
-from service.api.catalog_lookup import resolve_catalog_fluid
+from service.api.catalog_lookup import resolve_catalog_fluid, resolve_solute
+from service.api.computing_path import Input, Inputs
 from service.api.numbers import Number, printable
 from service.api.problems import invalid
-from service.api.quantity_fields import UnitField
+from service.api.quantity_fields import UnitField, difference, quantity
+from service.fluids.boiling import Boiling
 from service.fluids.caller_defined import fluid_from_boiling_point, fluid_from_equation
 from service.fluids.fluid import Fluid
 from service.fluids.forms import VAPOR_PRESSURE_FORMS, Coefficient
+from service.fluids.questions import Answer
+from service.fluids.solution import Basis, solution
 from service.physics.units import Unit
 
 _NAME = fields.String(
@@ -217,3 +222,49 @@ EXTRAPOLATE = fields.Boolean(
         "with a warning, instead of refusing."
     },
 )
+
+
+SOLUTE = fields.String(
+    validate=[validate.Length(min=1, max=100), printable],
+    metadata={
+        "description": "A solute dissolved in water (see /v1/solutes): the answer is the solution's, with "
+        "`concentration`. `fluid` is then water or left out.",
+    },
+)
+CONCENTRATION = Input(
+    "concentration",
+    "Concentration of `solute` in the solution: mass percent (wt%, the default), g/kg, mol/kg (molality) or "
+    "degBx (sucrose only).",
+)
+WATER_ACTIVITY = Unit("1", "concentration", 1.0, name="a ratio")  # a_w has no unit
+_BASES: dict[str, Basis] = {"mol/kg": "molality", "degBx": "Brix"}
+"""How each concentration unit states a concentration; the others are mass fractions."""
+
+
+def resolve_boiling(inputs: Inputs) -> Boiling:
+    """The request's fluid, or water with its ``solute`` at its ``concentration``."""
+    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    name, concentration = inputs.options.get("solute"), inputs.get("concentration")
+    if name is None:
+        if concentration is not None:
+            raise invalid("concentration", "goes with solute: name what is dissolved (GET /v1/solutes lists them)")
+        return fluid
+    solute = resolve_solute(name)
+    if not (isinstance(inputs.options["fluid"], str) and fluid.id == "water"):
+        raise invalid("fluid", f"{solute.name} is dissolved in water: give fluid=water, or leave fluid out")
+    if concentration is None:
+        raise invalid("concentration", f"give the concentration of {solute.name}")
+    return solution(solute, fluid, concentration, _BASES.get(inputs.units["concentration"].code, "mass fraction"))
+
+
+def solute_fields(found: Answer, boiling: Boiling, inputs: Inputs) -> dict[str, Any]:
+    """What an answer for a solution adds: the solute, the concentration as sent, how far it boils above pure
+    water at the same pressure, and its water activity; nothing for a pure fluid."""
+    if found.water_activity is None:
+        return {}
+    return {
+        "solute": boiling.solute.id,  # type: ignore[attr-defined]
+        "concentration": inputs.echo("concentration", inputs.units["concentration"]),
+        "boiling_point_elevation": difference(found.boiling_point_elevation, inputs.units["temperature"]),
+        "water_activity": quantity(found.water_activity, WATER_ACTIVITY),
+    }

@@ -28,6 +28,7 @@ UNIT_SCHEMAS: dict[str, tuple[Dimension, Reference | None]] = {
     "GaugePressureUnitSpelling": ("pressure", "gauge"),
     "TemperatureUnitSpelling": ("temperature", None),
     "LengthUnitSpelling": ("length", None),
+    "ConcentrationUnitSpelling": ("concentration", None),
 }
 """The named lists of unit spellings in the OpenAPI document (an absolute pressure takes the same as a
 request's pressure_unit)."""

@@ -124,7 +124,7 @@ def as_text(body: dict[str, Any]) -> str:
     return "\n".join(lines) + "\n"
 
 
-_CSV_NOTES = ("fluid", "model", "method", "source")
+_CSV_NOTES = ("fluid", "solute", "model", "method", "source")
 """Fields of an answer that a CSV answer carries in comment lines above its header."""
 
 

@@ -9,7 +9,7 @@ from typing import Literal
 import numpy as np
 from numpy.typing import NDArray
 
-Kind = Literal["pressure", "temperature", "length", "temperature difference"]
+Kind = Literal["pressure", "temperature", "length", "concentration", "temperature difference"]
 """What a number in a message measures; the API shows it in the request's unit of that kind."""
 
 

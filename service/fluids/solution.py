@@ -39,12 +39,12 @@ def solution(solute: Solute, water: Boiling, concentration: Numbers, basis: Basi
     sucrose, and for concentrations below zero or above the most the solute dissolves at any temperature."""
     if basis == "Brix" and not solute.brix:
         raise Refusal(
-            f"Degrees Brix measure sucrose; give the concentration of {solute.name} in wt%, g/kg or mol/kg.",
+            f"Degrees Brix measure sucrose; give the concentration of {solute.name.lower()} in wt%, g/kg or mol/kg.",
             {"concentration_unit": ["degBx is for sucrose solutions only"]},
             400,
         )
     highest = max(solute.stated_max.highest, solute.solubility.highest if solute.solubility else 0.0)
-    name = literal(solute.name)
+    name = literal(solute.name.lower())
     refuse_outside(
         "concentration",
         "concentration",
@@ -150,7 +150,7 @@ class Solution:
     def check_concentration(self, temperature: Numbers, extrapolate: bool) -> Warnings:
         """Refuse a concentration above the solubility at ``temperature`` [K] (the solid crystallises) or, unless
         extrapolated, above the equation's stated range there."""
-        solute, name = self.solute, literal(self.solute.name)
+        solute, name = self.solute, literal(self.solute.name.lower())
         if solute.solubility is not None:
             refuse_outside(
                 "concentration",

@@ -1,4 +1,4 @@
-"""Unit tables and conversions for pressure, temperature and length.
+"""Unit tables and conversions for pressure, temperature, length and concentration.
 
 Every conversion is affine: ``si = value * scale + offset``. Pressure and length are
 pure scales; temperature scales carry an offset. Factors are exact by definition:
@@ -37,7 +37,7 @@ from typing import Literal
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
-Dimension = Literal["pressure", "temperature", "length"]
+Dimension = Literal["pressure", "temperature", "length", "concentration"]
 Reference = Literal["absolute", "gauge"]
 
 
@@ -105,10 +105,18 @@ _LENGTH = (
     Unit("ft", "length", 0.3048, name="foot"),
 )
 
-UNITS: dict[str, Unit] = {u.code: u for u in _PRESSURE + _TEMPERATURE + _LENGTH}
+_CONCENTRATION = (
+    Unit("wt%", "concentration", 0.01, name="mass percent of solute"),
+    Unit("g/kg", "concentration", 1e-3, name="grams of solute per kilogram of solution (salinity)"),
+    Unit("mol/kg", "concentration", 1.0, name="moles of solute per kilogram of water (molality)"),
+    Unit("degBx", "concentration", 0.01, name="degree Brix (mass percent of sucrose)"),
+)
+"""Concentrations of a solute: the mass fractions convert to kg/kg; a molality stays in mol/kg, since its
+conversion needs the solute's molar mass (:mod:`service.fluids.solution`)."""
+UNITS: dict[str, Unit] = {u.code: u for u in _PRESSURE + _TEMPERATURE + _LENGTH + _CONCENTRATION}
 """Canonical unit codes, as they appear in every response."""
 
-DEFAULT_UNITS: dict[Dimension, str] = {"pressure": "kPa", "temperature": "degC", "length": "m"}
+DEFAULT_UNITS: dict[Dimension, str] = {"pressure": "kPa", "temperature": "degC", "length": "m", "concentration": "wt%"}
 
 _ALIASES = {
     "pascal": "Pa",
@@ -150,6 +158,15 @@ _ALIASES = {
     "kilometre": "km",
     "kilometer": "km",
     "feet": "ft",
+    "%": "wt%",
+    "wt %": "wt%",
+    "mass%": "wt%",
+    "% w/w": "wt%",
+    "‰": "g/kg",
+    "molal": "mol/kg",
+    "Bx": "degBx",
+    "°Bx": "degBx",
+    "brix": "degBx",
     "foot": "ft",
 }
 _REFERENCED: dict[str, tuple[str, Reference]] = {

@@ -140,8 +140,10 @@ def test_every_code_round_trips_arrays() -> None:
 
 
 def test_defaults_and_codes_match_the_design() -> None:
-    assert DEFAULT_UNITS == {"pressure": "kPa", "temperature": "degC", "length": "m"}
+    # DESIGN.md, "Aqueous solutions": concentration in wt% unless concentration_unit says otherwise.
+    assert DEFAULT_UNITS == {"pressure": "kPa", "temperature": "degC", "length": "m", "concentration": "wt%"}
     assert codes("pressure")[:11] == ["Pa", "hPa", "kPa", "MPa", "bar", "mbar", "atm", "psi", "mmHg", "Torr", "inHg"]
     assert codes("pressure")[11:] == ["kgf/cm2", "mH2O", "inH2O"]
     assert codes("temperature") == ["K", "degC", "degF", "degR"]
     assert codes("length") == ["m", "km", "ft"]
+    assert codes("concentration") == ["wt%", "g/kg", "mol/kg", "degBx"]

@@ -9,7 +9,15 @@ from marshmallow import validate
 
 from service.api import answer_schemas
 from service.api.computing_path import ComputingPath, Input, Inputs
-from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
+from service.api.fluid_input import (
+    BODY_FLUID,
+    CONCENTRATION,
+    EXTRAPOLATE,
+    FLUID,
+    SOLUTE,
+    resolve_boiling,
+    solute_fields,
+)
 from service.api.numbers import Number
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, pressure_fields, readings
 from service.api.quantity_fields import DENSITY, difference, quantity
@@ -28,7 +36,7 @@ TOLERANCE = Number(
 
 
 def saturation_margin(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    fluid = resolve_boiling(inputs)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     tolerance = inputs.options.get("tolerance")
     found = questions.saturation_margin(
@@ -53,12 +61,13 @@ def saturation_margin(inputs: Inputs) -> dict[str, Any]:
         "margin": difference(found.margin, t_unit),
         "state": found.state.tolist() if found.state.ndim else str(found.state),
         "tolerance": difference(found.tolerance, t_unit),
+        **solute_fields(found, fluid, inputs),
         **provenance(found, inputs.units),
     }
 
 
 def npsh_available(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    fluid = resolve_boiling(inputs)
     p_unit, t_unit, l_unit = inputs.units["pressure"], inputs.units["temperature"], inputs.units["length"]
     friction = inputs.get("friction_loss")
     found = questions.npsh_available(
@@ -68,6 +77,7 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
         inputs.values["static_head"],
         friction,
         inputs.options["extrapolate"],
+        inputs.options.get("liquid_density"),
     )
     return {
         "fluid": fluid.id,
@@ -80,10 +90,18 @@ def npsh_available(inputs: Inputs) -> dict[str, Any]:
         if friction is None
         else inputs.echo("friction_loss", l_unit),
         "npsh_available": quantity(found.npsh, l_unit),
+        **solute_fields(found, fluid, inputs),
         **provenance(found, inputs.units),
     }
 
 
+LIQUID_DENSITY = Number(
+    validate=validate.Range(min=100.0, max=5000.0),
+    metadata={
+        "description": "The liquid's density in kg/m3, where the service has no correlation for it (a solution) "
+        "or the caller has a measured one; it then replaces the correlation. 100 to 5000.",
+    },
+)
 MEASURED_TEMPERATURE = Input("temperature", "Measured temperature of the liquid.", required=True)
 
 ComputingPath(
@@ -99,10 +117,15 @@ ComputingPath(
         "called superheated. Differences are in K for kelvin and Celsius requests and in degR for Fahrenheit and "
         "Rankine requests."
     ),
-    inputs={"temperature": MEASURED_TEMPERATURE, **PRESSURE_INPUTS, **INSTRUMENT_INPUTS},
-    options={"fluid": FLUID, "extrapolate": EXTRAPOLATE, "tolerance": TOLERANCE},
+    inputs={
+        "temperature": MEASURED_TEMPERATURE,
+        **PRESSURE_INPUTS,
+        **INSTRUMENT_INPUTS,
+        "concentration": CONCENTRATION,
+    },
+    options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE, "tolerance": TOLERANCE},
     body_options={"fluid": BODY_FLUID},
-    dimensions=("pressure", "temperature", "length"),
+    dimensions=("pressure", "temperature", "length", "concentration"),
     response=answer_schemas.SaturationMarginAnswer,
     compute=saturation_margin,
     example={"fluid": "ethanol", "temperature": 48.0, "gauge_pressure": -55.0, "elevation": 1420.0},
@@ -127,10 +150,11 @@ ComputingPath(
             "length", "Liquid level above the pump suction centreline; negative for a lift.", required=True
         ),
         "friction_loss": Input("length", "Head lost to friction in the suction line (default 0)."),
+        "concentration": CONCENTRATION,
     },
-    options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+    options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE, "liquid_density": LIQUID_DENSITY},
     body_options={"fluid": BODY_FLUID},
-    dimensions=("pressure", "temperature", "length"),
+    dimensions=("pressure", "temperature", "length", "concentration"),
     response=answer_schemas.NpshAnswer,
     compute=npsh_available,
     example={"fluid": "water", "temperature": 72.0, "elevation": 1420.0, "static_head": 2.4, "friction_loss": 0.6},

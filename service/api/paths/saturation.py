@@ -8,7 +8,15 @@ from flask import Blueprint
 
 from service.api import answer_schemas
 from service.api.computing_path import ComputingPath, Input, Inputs
-from service.api.fluid_input import BODY_FLUID, EXTRAPOLATE, FLUID, resolve_fluid
+from service.api.fluid_input import (
+    BODY_FLUID,
+    CONCENTRATION,
+    EXTRAPOLATE,
+    FLUID,
+    SOLUTE,
+    resolve_boiling,
+    solute_fields,
+)
 from service.api.pressure_inputs import INSTRUMENT_INPUTS, PRESSURE_INPUTS, SITE_INPUTS, pressure_fields, readings
 from service.api.quantity_fields import difference, quantity, ratio
 from service.api.rendering import provenance
@@ -18,7 +26,7 @@ blueprint = Blueprint("saturation", __name__)
 
 
 def boiling_point(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    fluid = resolve_boiling(inputs)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     found = questions.boiling_point(
         fluid, readings(inputs), inputs.options["extrapolate"], inputs.get("depth"), inputs.get("pressure_uncertainty")
@@ -30,11 +38,16 @@ def boiling_point(inputs: Inputs) -> dict[str, Any]:
     }
     if found.uncertainty is not None:
         answer["boiling_point_uncertainty"] = difference(found.uncertainty, t_unit)
-    return {**answer, "sensitivity": ratio(found.slope, t_unit, p_unit), **provenance(found, inputs.units)}
+    return {
+        **answer,
+        "sensitivity": ratio(found.slope, t_unit, p_unit),
+        **solute_fields(found, fluid, inputs),
+        **provenance(found, inputs.units),
+    }
 
 
 def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
-    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)
+    fluid = resolve_boiling(inputs)
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     found = questions.vapor_pressure(fluid, inputs.values["temperature"], inputs.options["extrapolate"])
     return {
@@ -42,6 +55,7 @@ def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
         "temperature": inputs.echo("temperature", t_unit),
         "vapor_pressure": quantity(found.pressure, p_unit),
         "sensitivity": ratio(found.slope, p_unit, t_unit),
+        **solute_fields(found, fluid, inputs),
         **provenance(found, inputs.units),
     }
 
@@ -49,7 +63,7 @@ def vapor_pressure(inputs: Inputs) -> dict[str, Any]:
 def elevation(inputs: Inputs) -> dict[str, Any]:
     p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
     boiling = inputs.get("boiling_point")
-    fluid = resolve_fluid(inputs.options["fluid"], inputs.units)  # an unknown name is a 404 either way
+    fluid = resolve_boiling(inputs)  # an unknown name is a 404 either way
     found = questions.elevation(
         fluid, inputs.get("pressure"), boiling, inputs.get("sea_level_pressure"), inputs.options["extrapolate"]
     )
@@ -58,6 +72,7 @@ def elevation(inputs: Inputs) -> dict[str, Any]:
         "elevation": quantity(found.elevation, inputs.units["length"]),
         "pressure": quantity(found.pressure, p_unit) if boiling is not None else inputs.echo("pressure", p_unit),
         **fluid_fields,
+        **solute_fields(found, fluid, inputs),
         **provenance(found, inputs.units),
     }
 
@@ -75,10 +90,10 @@ for _operation in (
             "check, `pressure_uncertainty` gives `boiling_point_uncertainty` through the slope, and `depth` adds the "
             "hydrostatic head of the boiling liquid above the sensor."
         ),
-        inputs={**PRESSURE_INPUTS, **INSTRUMENT_INPUTS},
-        options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        inputs={**PRESSURE_INPUTS, **INSTRUMENT_INPUTS, "concentration": CONCENTRATION},
+        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
         body_options={"fluid": BODY_FLUID},
-        dimensions=("pressure", "temperature", "length"),
+        dimensions=("pressure", "temperature", "length", "concentration"),
         response=answer_schemas.BoilingPointAnswer,
         compute=boiling_point,
         example={"fluid": "water", "gauge_pressure": 950.0, "elevation": 1420.0},
@@ -88,10 +103,13 @@ for _operation in (
         name="VaporPressure",
         summary="Vapor pressure of a liquid at a temperature",
         description="The saturation pressure of a fluid at `temperature`, and its slope dp/dT.",
-        inputs={"temperature": Input("temperature", "Liquid temperature.", required=True)},
-        options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        inputs={
+            "temperature": Input("temperature", "Liquid temperature.", required=True),
+            "concentration": CONCENTRATION,
+        },
+        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
         body_options={"fluid": BODY_FLUID},
-        dimensions=("pressure", "temperature"),
+        dimensions=("pressure", "temperature", "concentration"),
         response=answer_schemas.VaporPressureAnswer,
         compute=vapor_pressure,
         example={"fluid": "water", "temperature": 72.0},
@@ -109,10 +127,11 @@ for _operation in (
             "pressure": Input("pressure", "Absolute air pressure.", reference="absolute"),
             "boiling_point": Input("temperature", "Temperature at which `fluid` boils in the open."),
             "sea_level_pressure": SITE_INPUTS["sea_level_pressure"],
+            "concentration": CONCENTRATION,
         },
-        options={"fluid": FLUID, "extrapolate": EXTRAPOLATE},
+        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
         body_options={"fluid": BODY_FLUID},
-        dimensions=("pressure", "temperature", "length"),
+        dimensions=("pressure", "temperature", "length", "concentration"),
         response=answer_schemas.ElevationAnswer,
         compute=elevation,
         example={"fluid": "water", "boiling_point": 95.2},
