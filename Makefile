@@ -55,10 +55,13 @@ bench-http: $(VENV)/.installed-bench
 bench-arrays: $(VENV)/.installed-bench
 	$(BIN)/python bench/arrays.py
 
-.PHONY: bench-devices bench-compare
+.PHONY: bench-devices bench-compare bench-solutions
 
 bench-devices: $(VENV)/.installed-bench
 	$(BIN)/python bench/devices.py
+
+bench-solutions: $(VENV)/.installed-bench
+	$(BIN)/python bench/solutions.py
 
 # The HTTP and array benchmarks against two committed revisions, each from a detached worktree.
 BASE ?= eb6c1ea
