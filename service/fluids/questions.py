@@ -56,14 +56,17 @@ class Answer:
     water_activity: Numbers | None = None
     """For a solution: its vapor pressure over pure water's at the same temperature [-]."""
 
-    def dissolved(self, boiling: Boiling, temperature: Numbers, extrapolate: bool, found: bool) -> None:
-        """For a solution, at ``temperature`` [K] (``found`` from a pressure, or given): refuse what its solute
-        equation does not answer, and add the boiling-point elevation, water activity and water's citation."""
+    def dissolved(
+        self, boiling: Boiling, temperature: Numbers, extrapolate: bool, pressure: Numbers | None = None
+    ) -> None:
+        """For a solution, at ``temperature`` [K] (where it boils at ``pressure`` [Pa] when that was given, else
+        a temperature given): refuse what its solute equation does not answer, and add the boiling-point
+        elevation, water activity and water's citation."""
         if not isinstance(boiling, Solution):
             return
-        check = boiling.check_boiling_point if found else boiling.check_concentration
+        check = boiling.check_concentration if pressure is None else boiling.check_boiling_point
         self.warnings += check(temperature, extrapolate)
-        self.boiling_point_elevation, self.water_activity = boiling.elevation_and_activity(temperature)
+        self.boiling_point_elevation, self.water_activity = boiling.elevation_and_activity(temperature, pressure)
         self.citations.append((boiling.water.method, boiling.water.source))
 
     def cite(
@@ -187,7 +190,7 @@ def _find_boiling_point(
         )
         answer.warnings += check_limits(limits, "pressure", "pressure", answer.pressure, extrapolate)
     answer.temperature = boiling.saturation_temperature(answer.pressure)
-    answer.dissolved(boiling, answer.temperature, extrapolate, found=True)
+    answer.dissolved(boiling, answer.temperature, extrapolate, answer.pressure)
     answer.slope = 1.0 / boiling.saturation_pressure_slope(answer.temperature)
     answer.warnings += near_critical(boiling, answer.temperature)
     if pressure_uncertainty is not None:
@@ -202,7 +205,7 @@ def vapor_pressure(boiling: Boiling, temperature: Numbers, extrapolate: bool = F
         boiling.liquid_temperature_limits, "temperature", "temperature", temperature, extrapolate
     )
     answer.warnings += near_critical(boiling, temperature)
-    answer.dissolved(boiling, temperature, extrapolate, found=False)
+    answer.dissolved(boiling, temperature, extrapolate)
     answer.pressure = boiling.saturation_pressure(temperature)
     answer.slope = boiling.saturation_pressure_slope(temperature)
     answer.cite(boiling)
@@ -229,7 +232,7 @@ def elevation(
         answer.warnings += check_limits(
             boiling.liquid_temperature_limits, "boiling_point", "temperature", boiling_point, extrapolate
         )
-        answer.dissolved(boiling, boiling_point, extrapolate, found=False)
+        answer.dissolved(boiling, boiling_point, extrapolate)
         pressure = boiling.saturation_pressure(boiling_point)
     sea_level = sea_level_pressure(sea_level)
     scale = sea_level / atmosphere.SEA_LEVEL_PRESSURE
@@ -264,7 +267,7 @@ def npsh_available(
     answer.warnings += check_limits(
         boiling.liquid_temperature_limits, "temperature", "temperature", temperature, extrapolate
     )
-    answer.dissolved(boiling, temperature, extrapolate, found=False)
+    answer.dissolved(boiling, temperature, extrapolate)
     density = None if liquid_density is not None else required_density(boiling, "liquid_density")
     outside = False if density is None else (temperature < density.t_min) | (temperature > density.t_max)
     if density is not None and any_of(outside):

@@ -185,13 +185,16 @@ class Solution:
             )
         ]
 
-    def elevation_and_activity(self, temperature: Numbers) -> tuple[Numbers, Numbers]:
-        """At a temperature [K] where the solution boils (at its own vapor pressure): how far above pure water's
-        boiling point at that pressure [K], and the water activity [-]; exactly 0 and 1 at zero concentration."""
-        activity = self.solute.equation.water_activity(temperature, self.mass_fraction)
-        pressure = activity * water_equations.saturation_pressure(temperature)
+    def elevation_and_activity(self, temperature: Numbers, pressure: Numbers | None = None) -> tuple[Numbers, Numbers]:
+        """At a temperature [K] where the solution boils, at ``pressure`` [Pa] if known (else at its own vapor
+        pressure there): how far above pure water's boiling point at that pressure [K], and the water activity
+        [-] (the pressure over pure water's vapor pressure); exactly 0 and 1 at zero concentration."""
+        p_w = water_equations.saturation_pressure(temperature)
+        if pressure is None:
+            pressure = self.solute.equation.water_activity(temperature, self.mass_fraction) * p_w
+        zero = self.mass_fraction == 0.0
         elevation = temperature - water_equations.saturation_temperature(pressure)
-        return np.where(self.mass_fraction == 0.0, 0.0, elevation), activity
+        return np.where(zero, 0.0, elevation), np.where(zero, 1.0, pressure / p_w)
 
     def _in_basis(self, mass_fraction: ArrayLike) -> NDArray[np.float64]:
         return _in_basis(mass_fraction, self.basis, self.solute.molar_mass)

@@ -10,7 +10,9 @@ SI throughout: temperature T [K], mass fraction of solute w [kg/kg], pressure [P
 from __future__ import annotations
 
 from abc import ABC, abstractmethod
+from collections.abc import Callable
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
@@ -39,22 +41,37 @@ def mole_fraction(mass_fraction: ArrayLike, molar_mass: float) -> NDArray[np.flo
     return moles / (moles + (1.0 - w) / WATER_MOLAR_MASS)
 
 
+Activity = Callable[[NDArray[np.float64]], NDArray[np.float64]]
+"""The water activity [-] of a solution of fixed composition, as a function of temperature [K]."""
+
+
 class SoluteEquation(ABC):
-    """A solute's water-activity correlation, and what follows from it for the solution."""
+    """A solute's water-activity correlation, and what follows from it for the solution.
+
+    :meth:`activity` fixes the composition once, so that the parts that depend on it alone are computed once
+    per request, not once per iteration of a solver.
+    """
 
     @abstractmethod
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
+        """a_w [-] as a function of temperature [K] at ``mass_fraction`` [kg/kg]; exactly 1 at zero concentration."""
+
     def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """a_w [-] at ``temperature`` [K] and ``mass_fraction`` [kg/kg]; exactly 1 at zero concentration."""
+        """a_w [-] at ``temperature`` [K] and ``mass_fraction`` [kg/kg]."""
+        return self.activity(mass_fraction)(np.asarray(temperature, dtype=float))
 
     def vapor_pressure(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
         """The solution's vapor pressure [Pa]: a_w times pure water's."""
         return self.water_activity(temperature, mass_fraction) * water.saturation_pressure(temperature)
 
     def vapor_pressure_slope(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """dp/dT [Pa/K] at fixed concentration: p (d ln p_w/dT + d ln a_w/dT), the second by central difference."""
+        """dp/dT [Pa/K] at fixed concentration: p (d ln p_w/dT + d ln a_w/dT), the second by a central difference
+        of :data:`_STEP`."""
         t, w = np.asarray(temperature, dtype=float), np.asarray(mass_fraction, dtype=float)
-        pure = water.saturation_pressure_slope(t)
-        slope = self.vapor_pressure(t, w) * (pure / water.saturation_pressure(t) + self._log_slope(t, w))
+        activity = self.activity(w)
+        pure, p_w = water.saturation_pressure_slope(t), water.saturation_pressure(t)
+        log_slope = (np.log(activity(t + _STEP)) - np.log(activity(t - _STEP))) / (2 * _STEP)
+        slope = activity(t) * p_w * (pure / p_w + log_slope)
         return np.where(w == 0.0, pure, slope)
 
     def boiling_temperature(
@@ -63,29 +80,27 @@ class SoluteEquation(ABC):
         """The temperature [K] at which the solution's vapor pressure is ``pressure`` [Pa], kept within
         [``low``, ``high``] [K] (a root beyond them ends on the bound, for the caller to refuse).
 
-        Newton's method on ln p(T) - ln p from pure water's boiling point, the derivative taken in full;
-        a point at zero concentration keeps pure water's boiling point exactly.
+        Successive substitution T = T_w(p / a_w(T)) through pure water's inverse table, from pure water's
+        boiling point: it converges as fast as a_w varies slowly with temperature (about ten steps for strong
+        brines, each a table lookup and one a_w). A point at zero concentration keeps pure water's answer exactly.
         """
-        p = np.asarray(pressure, dtype=float)
-        w = np.asarray(mass_fraction, dtype=float)
-        w = np.broadcast_to(w, np.broadcast_shapes(p.shape, w.shape))
+        p, w = _broadcast(pressure, mass_fraction)
+        activity = self.activity(w)
         pure = water.saturation_temperature(p)
-        t = np.clip(np.broadcast_to(pure, w.shape), low, high)
-        target = np.log(p)
+        t = np.clip(pure, low, high)
         for _ in range(_MAX_ITERATIONS):
-            residual = np.log(self.vapor_pressure(t, w)) - target
-            slope = water.saturation_pressure_slope(t) / water.saturation_pressure(t) + self._log_slope(t, w)
-            moved = np.clip(t - residual / slope, low, high)
+            wanted = np.clip(p / activity(t), water.TRIPLE_PRESSURE, water.CRITICAL_PRESSURE)
+            moved = np.clip(water.saturation_temperature(wanted), low, high)
             change, t = moved - t, moved
             if not np.any(np.abs(change) > _TOLERANCE):
                 break
         return np.where(w == 0.0, pure, t)
 
-    def _log_slope(self, temperature: NDArray[np.float64], mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """d(ln a_w)/dT [1/K] by a central difference of :data:`_STEP`."""
-        up = self.water_activity(temperature + _STEP, mass_fraction)
-        down = self.water_activity(temperature - _STEP, mass_fraction)
-        return (np.log(up) - np.log(down)) / (2 * _STEP)
+
+def _broadcast(pressure: ArrayLike, mass_fraction: ArrayLike) -> tuple[NDArray[np.float64], NDArray[np.float64]]:
+    p, w = np.asarray(pressure, dtype=float), np.asarray(mass_fraction, dtype=float)
+    shape = np.broadcast_shapes(p.shape, w.shape)
+    return np.broadcast_to(p, shape), np.broadcast_to(w, shape)
 
 
 @dataclass(frozen=True)
@@ -98,7 +113,7 @@ class StarzakPeacock(SoluteEquation):
     c: float
     molar_mass: float
 
-    def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
         """a_w of a sucrose solution.
 
         >>> sucrose = StarzakPeacock(-17638.0, -1.0038, -0.24653, 0.34229654)
@@ -106,9 +121,8 @@ class StarzakPeacock(SoluteEquation):
         102.91
         """
         x = mole_fraction(mass_fraction, self.molar_mass)
-        t = np.asarray(temperature, dtype=float)
-        log_gamma = self.energy / (GAS_CONSTANT * t) * np.square(x) * (1.0 + self.b * x + self.c * np.square(x))
-        return (1.0 - x) * np.exp(log_gamma)
+        exponent = self.energy / GAS_CONSTANT * np.square(x) * (1.0 + self.b * x + self.c * np.square(x))
+        return lambda temperature: (1.0 - x) * np.exp(exponent / temperature)
 
 
 @dataclass(frozen=True)
@@ -117,13 +131,39 @@ class TemperatureShift(SoluteEquation):
     a_w = p_w(T - shift) / p_w(T). Subclasses give the shift."""
 
     @abstractmethod
-    def shift(self, temperature: NDArray[np.float64], mass_fraction: NDArray[np.float64]) -> NDArray[np.float64]:
-        """The temperature shift [K]; zero at zero concentration."""
+    def shift_at(self, mass_fraction: NDArray[np.float64]) -> Activity:
+        """The temperature shift [K] as a function of temperature [K] at ``mass_fraction``; zero at zero."""
 
-    def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        t = np.asarray(temperature, dtype=float)
-        shift = self.shift(t, np.asarray(mass_fraction, dtype=float))
-        return water.saturation_pressure(t - shift) / water.saturation_pressure(t)
+    def shift(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
+        """The temperature shift [K] at ``temperature`` [K] and ``mass_fraction`` [kg/kg]."""
+        return self.shift_at(np.asarray(mass_fraction, dtype=float))(np.asarray(temperature, dtype=float))
+
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
+        shift = self.shift_at(np.asarray(mass_fraction, dtype=float))
+        return lambda t: water.saturation_pressure(t - shift(t)) / water.saturation_pressure(t)
+
+    def vapor_pressure_slope(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
+        """dp/dT [Pa/K] = p_w'(T - shift) (1 - d shift/dT), the last by a central difference of :data:`_STEP`."""
+        t, w = np.asarray(temperature, dtype=float), np.asarray(mass_fraction, dtype=float)
+        shift = self.shift_at(w)
+        rate = (shift(t + _STEP) - shift(t - _STEP)) / (2 * _STEP)
+        return water.saturation_pressure_slope(t - shift(t)) * (1.0 - rate)
+
+    def boiling_temperature(
+        self, pressure: ArrayLike, mass_fraction: ArrayLike, low: float = 0.0, high: float = np.inf
+    ) -> NDArray[np.float64]:
+        """As :meth:`SoluteEquation.boiling_temperature`, more directly: the solution boils where T - shift(T) is
+        pure water's boiling point, so T = T_w(p) + shift(T), which converges in a few steps of the shift alone."""
+        p, w = _broadcast(pressure, mass_fraction)
+        shift = self.shift_at(w)
+        pure = water.saturation_temperature(p)
+        t = np.clip(pure, low, high)
+        for _ in range(_MAX_ITERATIONS):
+            moved = np.clip(pure + shift(t), low, high)
+            change, t = moved - t, moved
+            if not np.any(np.abs(change) > _TOLERANCE):
+                break
+        return np.where(w == 0.0, pure, t)
 
 
 @dataclass(frozen=True)
@@ -136,18 +176,16 @@ class Sharqawy(TemperatureShift):
     a: tuple[float, float, float]
     b: tuple[float, float, float]
 
-    def shift(self, temperature: NDArray[np.float64], mass_fraction: NDArray[np.float64]) -> NDArray[np.float64]:
-        """BPE [K] at the seawater's temperature [K] and salinity [kg/kg].
+    def shift_at(self, mass_fraction: NDArray[np.float64]) -> Activity:
+        """BPE [K] at the seawater's temperature [K] and salinity [kg/kg]: c0 + c1 t + c2 t**2, t [degC].
 
         >>> sea = Sharqawy((17.95, 0.2823, -4.584e-4), (6.56, 0.05267, 1.536e-4))
-        >>> round(float(sea.shift(np.float64(373.15), np.float64(0.035))), 3)  # the paper's Fig. 11: about 0.52 K
+        >>> round(float(sea.shift(373.15, 0.035)), 3)  # the paper's Fig. 11: about 0.52 K
         0.519
         """
-        t = temperature - 273.15
         salinity = 1000.0 * mass_fraction
-        big_a = (self.a[0] + self.a[1] * t + self.a[2] * np.square(t)) * 1e-6
-        big_b = (self.b[0] + self.b[1] * t + self.b[2] * np.square(t)) * 1e-3
-        return big_a * np.square(salinity) + big_b * salinity
+        c0, c1, c2 = (a * 1e-6 * np.square(salinity) + b * 1e-3 * salinity for a, b in zip(self.a, self.b, strict=True))
+        return lambda temperature: c0 + (temperature - 273.15) * (c1 + (temperature - 273.15) * c2)
 
 
 @dataclass(frozen=True)
@@ -161,8 +199,8 @@ class PatekKlomfar(TemperatureShift):
     t: tuple[int, ...]
     molar_mass: float
 
-    def shift(self, temperature: NDArray[np.float64], mass_fraction: NDArray[np.float64]) -> NDArray[np.float64]:
-        """The sum [K].
+    def shift_at(self, mass_fraction: NDArray[np.float64]) -> Activity:
+        """The sum [K], its terms grouped by their power of T/Tc.
 
         >>> libr = PatekKlomfar((-241.303, 19175000.0, -175521000.0, 32543000.0, 392.571, -2126.26, 185127000.0,
         ...     1912.16), (3, 4, 4, 8, 1, 1, 4, 6), (0, 5, 6, 3, 0, 2, 6, 0), (0, 0, 0, 0, 1, 1, 1, 1), 0.08685)
@@ -170,11 +208,15 @@ class PatekKlomfar(TemperatureShift):
         664
         """
         x = mole_fraction(mass_fraction, self.molar_mass)
-        reduced = temperature / water.CRITICAL_TEMPERATURE
-        total = np.zeros(np.broadcast_shapes(x.shape, reduced.shape))
+        powers: dict[int, NDArray[np.float64]] = {}
         for a, m, n, t in zip(self.a, self.m, self.n, self.t, strict=True):
-            total = total + a * np.power(x, m) * np.power(0.4 - x, n) * np.power(reduced, t)
-        return total
+            powers[t] = powers.get(t, 0.0) + a * np.power(x, m) * np.power(0.4 - x, n)
+
+        def shift(temperature: NDArray[np.float64]) -> NDArray[np.float64]:
+            reduced = temperature / water.CRITICAL_TEMPERATURE
+            return sum((c * np.power(reduced, t) for t, c in powers.items()), np.zeros_like(x))
+
+        return shift
 
 
 @dataclass(frozen=True)
@@ -191,8 +233,8 @@ class Conde(SoluteEquation):
     pi: tuple[float, ...]
     reducing_temperature: float = 647.26
 
-    def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """a_w of a calcium chloride solution.
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
+        """a_w of a calcium chloride solution, pi_25 A + pi_25 B theta.
 
         >>> cacl2 = Conde((0.31, 3.698, 0.6, 0.231, 4.584, 0.49, 0.478, -5.2, -0.4, 0.018))
         >>> round(float(cacl2.water_activity(298.15, 0.3)), 3)  # 30 wt%, 25 degC (the equation's value)
@@ -200,12 +242,14 @@ class Conde(SoluteEquation):
         """
         p = self.pi
         w = np.asarray(mass_fraction, dtype=float)
-        theta = np.asarray(temperature, dtype=float) / self.reducing_temperature
         with np.errstate(divide="ignore"):  # w = 0: (0/pi6)**pi7 is infinite, and its term vanishes
             pi25 = 1.0 - np.power(1.0 + np.power(w / p[6], p[7]), p[8]) - p[9] * np.exp(-np.square(w - 0.1) / 0.005)
         big_a = 2.0 - np.power(1.0 + np.power(w / p[0], p[1]), p[2])
         big_b = np.power(1.0 + np.power(w / p[3], p[4]), p[5]) - 1.0
-        return np.where(w == 0.0, 1.0, pi25 * (big_a + big_b * theta))
+        zero = w == 0.0
+        constant = np.where(zero, 1.0, pi25 * big_a)
+        per_kelvin = np.where(zero, 0.0, pi25 * big_b / self.reducing_temperature)
+        return lambda temperature: constant + per_kelvin * temperature
 
 
 @dataclass(frozen=True)
@@ -217,7 +261,7 @@ class Sparrow(SoluteEquation):
 
     rows: tuple[tuple[float, ...], ...]
 
-    def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
         """a_w of a sodium chloride solution.
 
         >>> salt = Sparrow(((0.9083e-3, -0.569e-3, 0.1945e-3, -3.736e-3, 2.82e-3),
@@ -228,15 +272,18 @@ class Sparrow(SoluteEquation):
         >>> round(float(salt.boiling_temperature(101_325.0, 0.282)) - 273.15, 1)  # saturated: about 108.7 degC
         108.7
         """
-        t = np.asarray(temperature, dtype=float) - 273.15
         w = np.asarray(mass_fraction, dtype=float)
-        return self._pressure(t, w) / self._pressure(t, np.zeros_like(w))
+        solution = [np.polynomial.polynomial.polyval(w, row) for row in self.rows]
+        pure = [row[0] for row in self.rows]
+        return lambda temperature: _horner(solution, temperature - 273.15) / _horner(pure, temperature - 273.15)
 
-    def _pressure(self, t: NDArray[np.float64], x: NDArray[np.float64]) -> NDArray[np.float64]:
-        total = np.zeros(np.broadcast_shapes(t.shape, x.shape))
-        for row in reversed(self.rows):
-            total = total * t + np.polynomial.polynomial.polyval(x, row)
-        return total
+
+def _horner(coefficients: list[Any], t: NDArray[np.float64]) -> NDArray[np.float64]:
+    """sum(c_k t**k), lowest power first."""
+    total = np.zeros_like(t) + coefficients[-1]
+    for c in reversed(coefficients[:-1]):
+        total = total * t + c
+    return total
 
 
 @dataclass(frozen=True)
@@ -250,7 +297,7 @@ class Olsson(SoluteEquation):
     l: tuple[float, ...]  # noqa: E741 (the paper's name)
     m: tuple[float, ...]
 
-    def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
+    def activity(self, mass_fraction: ArrayLike) -> Activity:
         """a_w of a sodium hydroxide solution.
 
         >>> naoh = Olsson((-113.93947, 209.82305, 494.77153, 6860.8330, 2676.6433, -21740.328, -34750.872,
@@ -260,10 +307,13 @@ class Olsson(SoluteEquation):
         >>> round(float(naoh.boiling_temperature(101_325.0, 0.5)) - 273.15, 1)  # 50 wt%: about 145 degC (Dow)
         146.3
         """
-        t = np.asarray(temperature, dtype=float) - 273.15
-        w = np.asarray(mass_fraction, dtype=float)
-        return np.exp(self._log_pressure(t, np.log1p(-w)) - self._log_pressure(t, np.zeros_like(w)))
-
-    def _log_pressure(self, t: NDArray[np.float64], log_xi: NDArray[np.float64]) -> NDArray[np.float64]:
         polyval = np.polynomial.polynomial.polyval
-        return (polyval(log_xi, self.k) + polyval(log_xi, self.l) * t) / (t - polyval(log_xi, self.m))
+        log_xi = np.log1p(-np.asarray(mass_fraction, dtype=float))
+        a1, a2, a3 = (polyval(log_xi, c) for c in (self.k, self.l, self.m))
+        k0, l0, m0 = self.k[0], self.l[0], self.m[0]
+
+        def activity(temperature: NDArray[np.float64]) -> NDArray[np.float64]:
+            t = temperature - 273.15
+            return np.exp((a1 + a2 * t) / (t - a3) - (k0 + l0 * t) / (t - m0))
+
+        return activity
