@@ -61,7 +61,7 @@ def main() -> None:
     with gunicorn(free_port()) as (base, _):
         url = urlparse(base)
         conn = http.client.HTTPConnection(url.hostname, url.port, timeout=60)
-        for name, post in posts.items():  # warm up
+        for post in posts.values():  # warm up
             timed_posts(conn, post, pressures, 1)
         for _ in range(ROUNDS):
             for name, post in posts.items():
