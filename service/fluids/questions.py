@@ -59,13 +59,12 @@ class Answer:
     def dissolved(
         self, boiling: Boiling, temperature: Numbers, extrapolate: bool, pressure: Numbers | None = None
     ) -> None:
-        """For a solution, at ``temperature`` [K] (where it boils at ``pressure`` [Pa] when that was given, else
-        a temperature given): refuse what its solute equation does not answer, and add the boiling-point
-        elevation, water activity and water's citation."""
+        """For a solution, at ``temperature`` [K] (where it boils, at ``pressure`` [Pa] where that is known):
+        refuse a concentration its solute equation does not answer there, and add the boiling-point elevation,
+        water activity and water's citation."""
         if not isinstance(boiling, Solution):
             return
-        check = boiling.check_concentration if pressure is None else boiling.check_boiling_point
-        self.warnings += check(temperature, extrapolate)
+        self.warnings += boiling.check_concentration(temperature, extrapolate)
         self.boiling_point_elevation, self.water_activity = boiling.elevation_and_activity(temperature, pressure)
         self.citations.append((boiling.water.method, boiling.water.source))
 
@@ -189,6 +188,8 @@ def _find_boiling_point(
             local.value, depth, lambda p: density.density(boiling.saturation_temperature(p))
         )
         answer.warnings += check_limits(limits, "pressure", "pressure", answer.pressure, extrapolate)
+    if isinstance(boiling, Solution):  # its equation's range depends on its concentration, point by point
+        answer.warnings += boiling.check_pressure(answer.pressure, extrapolate)
     answer.temperature = boiling.saturation_temperature(answer.pressure)
     answer.dissolved(boiling, answer.temperature, extrapolate, answer.pressure)
     answer.slope = 1.0 / boiling.saturation_pressure_slope(answer.temperature)

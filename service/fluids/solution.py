@@ -18,10 +18,11 @@ from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.boiling import Boiling, LiquidDensity
 from service.fluids.cautions import Caution, Warnings, literal
-from service.fluids.limits import Limits, Refusal, any_of, check_limits, refuse_outside
+from service.fluids.limits import Limits, Refusal, any_of, refuse_outside
 from service.fluids.solutes import Solute
 from service.physics import water as water_equations
 from service.physics.array_blocks import Numbers
+from service.physics.solutions import SolutionLine
 
 Basis = Literal["mass fraction", "molality", "Brix"]
 """How a request states a concentration: a mass fraction [kg/kg] (wt% and g/kg convert to it), a molality
@@ -29,9 +30,9 @@ Basis = Literal["mass fraction", "molality", "Brix"]
 REACH = 10.0
 """How far [K] beyond a solute equation's stated temperature range ``extrapolate`` may take it (common practice,
 no source: empirical fits in temperature go wrong fast outside their data)."""
-_NEWTON_MARGIN = 0.5
-"""Newton's iterates stay this many kelvin outside the reach: a boiling point beyond it is then refused, not
-computed from an equation far out of its range."""
+_SOLVER_MARGIN = 0.5
+"""The solver's iterates stay within this many kelvin outside the reach, so that no equation is evaluated far
+out of its range (the pressures whose boiling points lie beyond the reach are refused before)."""
 
 
 def solution(solute: Solute, water: Boiling, concentration: Numbers, basis: Basis) -> Solution:
@@ -123,29 +124,56 @@ class Solution:
         reach = max(stated[0] - REACH, low), min(stated[1] + REACH, high)
         return Limits((band,), stated, reach, literal(f"the {self.method}"))
 
+    @cached_property
+    def line(self) -> SolutionLine:
+        """The solution's vapor-pressure line at its concentrations, built once."""
+        return self.solute.equation.at(self.mass_fraction)
+
     def saturation_temperature(self, pressure: ArrayLike) -> NDArray[np.float64]:
-        """Boiling point [K] at ``pressure`` [Pa]; Newton's iterates kept just outside the reach."""
+        """Boiling point [K] at ``pressure`` [Pa], the solver kept just outside the reach."""
         low, high = self.liquid_temperature_limits.reach
-        return self.solute.equation.boiling_temperature(
-            pressure, self.mass_fraction, max(low - _NEWTON_MARGIN, 0.5 * low), high + _NEWTON_MARGIN
-        )
+        return self.line.boiling_temperature(pressure, max(low - _SOLVER_MARGIN, 0.5 * low), high + _SOLVER_MARGIN)
 
     def saturation_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """The solution's vapor pressure [Pa] at ``temperature`` [K]."""
-        return self.solute.equation.vapor_pressure(temperature, self.mass_fraction)
+        return self.line.vapor_pressure(temperature)
 
     def saturation_pressure_slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
         """dp/dT [Pa/K] at fixed concentration."""
-        return self.solute.equation.vapor_pressure_slope(temperature, self.mass_fraction)
+        return self.line.vapor_pressure_slope(temperature)
 
-    def check_boiling_point(self, temperature: Numbers, extrapolate: bool) -> Warnings:
-        """Refuse a boiling point found from a pressure outside the solute equation's range (a caution where
-        extrapolated), then check the concentration there."""
+    def check_pressure(self, pressure: Numbers, extrapolate: bool) -> Warnings:
+        """Before a boiling point is sought: refuse a ``pressure`` [Pa] at which this solution would boil outside
+        its equation's stated temperature range, unless extrapolated (then a caution), and always beyond the
+        reach. The limits are the solution's own vapor pressures at the range's ends, per point."""
         limits = self.liquid_temperature_limits
-        where = Limits(limits.exists, limits.stated, limits.reach, f"{limits.equation} (where this solution boils)")
-        return check_limits(where, "pressure", "temperature", temperature, extrapolate) + self.check_concentration(
-            temperature, extrapolate
+        low, high = (self.line.vapor_pressure(t) for t in limits.stated)
+        outside = (pressure < low) | (pressure > high)
+        if not any_of(outside):
+            return []
+        where = f"where this solution boils at the {{end}} of the stated range of {limits.equation}"
+        if not extrapolate:
+            hint = " (send extrapolate=true to extrapolate)"
+            refuse_outside(
+                "pressure",
+                "pressure",
+                pressure,
+                low,
+                high,
+                f"{{limit}}, {where.format(end='bottom')}{hint}",
+                f"{{limit}}, {where.format(end='top')}{hint}",
+            )
+        reach = f"{{limit}}, where this solution boils as far as {limits.equation} can be extrapolated"
+        refuse_outside(
+            "pressure", "pressure", pressure, *(self.line.vapor_pressure(t) for t in limits.reach), reach, reach
         )
+        return [
+            Caution(
+                f"pressure lies where this solution boils outside the stated range of {limits.equation}: "
+                "extrapolated, accuracy unknown.",
+                outside,
+            )
+        ]
 
     def check_concentration(self, temperature: Numbers, extrapolate: bool) -> Warnings:
         """Refuse a concentration above the solubility at ``temperature`` [K] (the solid crystallises) or, unless
@@ -191,7 +219,7 @@ class Solution:
         [-] (the pressure over pure water's vapor pressure); exactly 0 and 1 at zero concentration."""
         p_w = water_equations.saturation_pressure(temperature)
         if pressure is None:
-            pressure = self.solute.equation.water_activity(temperature, self.mass_fraction) * p_w
+            pressure = self.line.water_activity(temperature) * p_w
         zero = self.mass_fraction == 0.0
         elevation = temperature - water_equations.saturation_temperature(pressure)
         return np.where(zero, 0.0, elevation), np.where(zero, 1.0, pressure / p_w)

@@ -45,62 +45,119 @@ Activity = Callable[[NDArray[np.float64]], NDArray[np.float64]]
 """The water activity [-] of a solution of fixed composition, as a function of temperature [K]."""
 
 
-class SoluteEquation(ABC):
-    """A solute's water-activity correlation, and what follows from it for the solution.
+class SolutionLine:
+    """Water with a solute at one composition (per point): the solution's vapor-pressure line.
 
-    :meth:`activity` fixes the composition once, so that the parts that depend on it alone are computed once
-    per request, not once per iteration of a solver.
+    Built once per request by :meth:`SoluteEquation.at`, so that whatever depends on the composition alone is
+    computed once, not at every step of a solver.
     """
+
+    def __init__(self, activity: Activity, mass_fraction: ArrayLike) -> None:
+        self.activity = activity
+        self.mass_fraction = np.asarray(mass_fraction, dtype=float)
+
+    def water_activity(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """a_w [-] at ``temperature`` [K]; exactly 1 at zero concentration."""
+        return self.activity(np.asarray(temperature, dtype=float))
+
+    def vapor_pressure(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """The solution's vapor pressure [Pa]: a_w times pure water's."""
+        return self.water_activity(temperature) * water.saturation_pressure(temperature)
+
+    def vapor_pressure_slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """dp/dT [Pa/K] at fixed concentration: p (d ln p_w/dT + d ln a_w/dT), the second by a central difference
+        of :data:`_STEP`."""
+        t = np.asarray(temperature, dtype=float)
+        pure, p_w = water.saturation_pressure_slope(t), water.saturation_pressure(t)
+        log_slope = (np.log(self.activity(t + _STEP)) - np.log(self.activity(t - _STEP))) / (2 * _STEP)
+        slope = self.activity(t) * p_w * (pure / p_w + log_slope)
+        return np.where(self.mass_fraction == 0.0, pure, slope)
+
+    def boiling_temperature(self, pressure: ArrayLike, low: float = 0.0, high: float = np.inf) -> NDArray[np.float64]:
+        """The temperature [K] at which the solution's vapor pressure is ``pressure`` [Pa], kept within
+        [``low``, ``high``] [K] (a root beyond them ends on the bound, for the caller to refuse).
+
+        The root of h(T) = g(T) - T, g(T) = T_w(p / a_w(T)) through pure water's inverse table: one step of
+        substitution from pure water's boiling point, then the secant method on h, which a_w's slow change with
+        temperature makes nearly linear (four to six steps for strong brines, each one a_w and one table
+        lookup). A point at zero concentration keeps pure water's answer exactly.
+        """
+        p = np.asarray(pressure, dtype=float)
+        pure = water.saturation_temperature(p)
+
+        def substituted(t: NDArray[np.float64]) -> NDArray[np.float64]:
+            wanted = np.clip(p / self.activity(t), water.TRIPLE_PRESSURE, water.CRITICAL_PRESSURE)
+            return np.clip(water.saturation_temperature(wanted), low, high)
+
+        before = np.clip(pure, low, high)
+        now = substituted(before)
+        gap_before = now - before
+        for _ in range(_MAX_ITERATIONS):
+            gap = substituted(now) - now
+            turn = gap - gap_before
+            step = np.divide(gap * (now - before), turn, out=np.array(gap, dtype=float), where=turn != 0.0)
+            before, gap_before, now = now, gap, np.clip(now - step, low, high)
+            if not np.any(np.abs(now - before) > _TOLERANCE):
+                break
+        return np.where(self.mass_fraction == 0.0, pure, now)
+
+
+class ShiftedLine(SolutionLine):
+    """A solution that boils as pure water does ``shift`` kelvin lower: p(T) = p_w(T - shift(T))."""
+
+    def __init__(self, shift: Activity, mass_fraction: ArrayLike) -> None:
+        super().__init__(
+            lambda t: water.saturation_pressure(t - shift(t)) / water.saturation_pressure(t), mass_fraction
+        )
+        self.shift = shift
+
+    def vapor_pressure_slope(self, temperature: ArrayLike) -> NDArray[np.float64]:
+        """dp/dT [Pa/K] = p_w'(T - shift) (1 - d shift/dT), the last by a central difference of :data:`_STEP`."""
+        t = np.asarray(temperature, dtype=float)
+        rate = (self.shift(t + _STEP) - self.shift(t - _STEP)) / (2 * _STEP)
+        return water.saturation_pressure_slope(t - self.shift(t)) * (1.0 - rate)
+
+    def boiling_temperature(self, pressure: ArrayLike, low: float = 0.0, high: float = np.inf) -> NDArray[np.float64]:
+        """The solution boils where T - shift(T) is pure water's boiling point, so T = T_w(p) + shift(T), which
+        converges in a few steps of the shift alone (its slope is a few thousandths)."""
+        pure = water.saturation_temperature(pressure)
+        t = np.clip(pure, low, high)
+        for _ in range(_MAX_ITERATIONS):
+            moved = np.clip(pure + self.shift(t), low, high)
+            change, t = moved - t, moved
+            if not np.any(np.abs(change) > _TOLERANCE):
+                break
+        return np.where(self.mass_fraction == 0.0, pure, t)
+
+
+class SoluteEquation(ABC):
+    """A solute's water-activity correlation; :meth:`at` gives the solution's line at a composition."""
 
     @abstractmethod
     def activity(self, mass_fraction: ArrayLike) -> Activity:
         """a_w [-] as a function of temperature [K] at ``mass_fraction`` [kg/kg]; exactly 1 at zero concentration."""
 
+    def at(self, mass_fraction: ArrayLike) -> SolutionLine:
+        """The solution's vapor-pressure line at ``mass_fraction`` [kg/kg] (per point)."""
+        return SolutionLine(self.activity(mass_fraction), mass_fraction)
+
     def water_activity(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
         """a_w [-] at ``temperature`` [K] and ``mass_fraction`` [kg/kg]."""
-        return self.activity(mass_fraction)(np.asarray(temperature, dtype=float))
+        return self.at(mass_fraction).water_activity(temperature)
 
     def vapor_pressure(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """The solution's vapor pressure [Pa]: a_w times pure water's."""
-        return self.water_activity(temperature, mass_fraction) * water.saturation_pressure(temperature)
+        """The solution's vapor pressure [Pa] at ``temperature`` [K] and ``mass_fraction`` [kg/kg]."""
+        return self.at(mass_fraction).vapor_pressure(temperature)
 
     def vapor_pressure_slope(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """dp/dT [Pa/K] at fixed concentration: p (d ln p_w/dT + d ln a_w/dT), the second by a central difference
-        of :data:`_STEP`."""
-        t, w = np.asarray(temperature, dtype=float), np.asarray(mass_fraction, dtype=float)
-        activity = self.activity(w)
-        pure, p_w = water.saturation_pressure_slope(t), water.saturation_pressure(t)
-        log_slope = (np.log(activity(t + _STEP)) - np.log(activity(t - _STEP))) / (2 * _STEP)
-        slope = activity(t) * p_w * (pure / p_w + log_slope)
-        return np.where(w == 0.0, pure, slope)
+        """dp/dT [Pa/K] at ``temperature`` [K] and fixed ``mass_fraction`` [kg/kg]."""
+        return self.at(mass_fraction).vapor_pressure_slope(temperature)
 
     def boiling_temperature(
         self, pressure: ArrayLike, mass_fraction: ArrayLike, low: float = 0.0, high: float = np.inf
     ) -> NDArray[np.float64]:
-        """The temperature [K] at which the solution's vapor pressure is ``pressure`` [Pa], kept within
-        [``low``, ``high``] [K] (a root beyond them ends on the bound, for the caller to refuse).
-
-        Successive substitution T = T_w(p / a_w(T)) through pure water's inverse table, from pure water's
-        boiling point: it converges as fast as a_w varies slowly with temperature (about ten steps for strong
-        brines, each a table lookup and one a_w). A point at zero concentration keeps pure water's answer exactly.
-        """
-        p, w = _broadcast(pressure, mass_fraction)
-        activity = self.activity(w)
-        pure = water.saturation_temperature(p)
-        t = np.clip(pure, low, high)
-        for _ in range(_MAX_ITERATIONS):
-            wanted = np.clip(p / activity(t), water.TRIPLE_PRESSURE, water.CRITICAL_PRESSURE)
-            moved = np.clip(water.saturation_temperature(wanted), low, high)
-            change, t = moved - t, moved
-            if not np.any(np.abs(change) > _TOLERANCE):
-                break
-        return np.where(w == 0.0, pure, t)
-
-
-def _broadcast(pressure: ArrayLike, mass_fraction: ArrayLike) -> tuple[NDArray[np.float64], NDArray[np.float64]]:
-    p, w = np.asarray(pressure, dtype=float), np.asarray(mass_fraction, dtype=float)
-    shape = np.broadcast_shapes(p.shape, w.shape)
-    return np.broadcast_to(p, shape), np.broadcast_to(w, shape)
+        """The boiling point [K] at ``pressure`` [Pa] and ``mass_fraction`` [kg/kg], within [``low``, ``high``]."""
+        return self.at(mass_fraction).boiling_temperature(pressure, low, high)
 
 
 @dataclass(frozen=True)
@@ -139,31 +196,11 @@ class TemperatureShift(SoluteEquation):
         return self.shift_at(np.asarray(mass_fraction, dtype=float))(np.asarray(temperature, dtype=float))
 
     def activity(self, mass_fraction: ArrayLike) -> Activity:
-        shift = self.shift_at(np.asarray(mass_fraction, dtype=float))
-        return lambda t: water.saturation_pressure(t - shift(t)) / water.saturation_pressure(t)
+        return self.at(mass_fraction).activity
 
-    def vapor_pressure_slope(self, temperature: ArrayLike, mass_fraction: ArrayLike) -> NDArray[np.float64]:
-        """dp/dT [Pa/K] = p_w'(T - shift) (1 - d shift/dT), the last by a central difference of :data:`_STEP`."""
-        t, w = np.asarray(temperature, dtype=float), np.asarray(mass_fraction, dtype=float)
-        shift = self.shift_at(w)
-        rate = (shift(t + _STEP) - shift(t - _STEP)) / (2 * _STEP)
-        return water.saturation_pressure_slope(t - shift(t)) * (1.0 - rate)
-
-    def boiling_temperature(
-        self, pressure: ArrayLike, mass_fraction: ArrayLike, low: float = 0.0, high: float = np.inf
-    ) -> NDArray[np.float64]:
-        """As :meth:`SoluteEquation.boiling_temperature`, more directly: the solution boils where T - shift(T) is
-        pure water's boiling point, so T = T_w(p) + shift(T), which converges in a few steps of the shift alone."""
-        p, w = _broadcast(pressure, mass_fraction)
-        shift = self.shift_at(w)
-        pure = water.saturation_temperature(p)
-        t = np.clip(pure, low, high)
-        for _ in range(_MAX_ITERATIONS):
-            moved = np.clip(pure + shift(t), low, high)
-            change, t = moved - t, moved
-            if not np.any(np.abs(change) > _TOLERANCE):
-                break
-        return np.where(w == 0.0, pure, t)
+    def at(self, mass_fraction: ArrayLike) -> SolutionLine:
+        w = np.asarray(mass_fraction, dtype=float)
+        return ShiftedLine(self.shift_at(w), w)
 
 
 @dataclass(frozen=True)

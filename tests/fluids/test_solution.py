@@ -106,6 +106,11 @@ def test_above_the_stated_range_needs_extrapolate(water: Boiling) -> None:
 def test_boiling_point_above_the_stated_range_needs_extrapolate(water: Boiling) -> None:
     # Olsson, Jernqvist and Aly (1997) state their equation to 200 degC (data/solutes/sodium-hydroxide.toml).
     caustic = dissolved(water, "sodium-hydroxide", 0.5)
+    at_205 = caustic.saturation_pressure(np.float64(478.15))  # where it boils 5 K above the range
     with pytest.raises(OutOfRange):
-        caustic.check_boiling_point(np.float64(478.15), extrapolate=False)
-    assert len(caustic.check_boiling_point(np.float64(478.15), extrapolate=True)) == 1
+        caustic.check_pressure(at_205, extrapolate=False)
+    assert len(caustic.check_pressure(at_205, extrapolate=True)) == 1
+    # Beyond the 10 K reach the refusal names the pressure where the reach ends, not a solver's bound.
+    with pytest.raises(OutOfRange) as refused:
+        caustic.check_pressure(3e6, extrapolate=True)
+    assert refused.value.high == pytest.approx(caustic.saturation_pressure(np.float64(483.15)), rel=1e-12)
