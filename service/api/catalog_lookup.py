@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from typing import Any
+
 from flask import current_app
 
 from service.api.problems import Problem, invalid
@@ -27,14 +29,17 @@ def resolve_solute(name: str) -> Solute:
     """The solute named ``name``; 404 listing the closest names."""
     solute = solutes().get(name)
     if solute is None:
-        close = solutes().close_matches(name)
-        hint = f" Closest matches: {', '.join(close)}." if close else ""
-        raise Problem(
-            404,
-            f"No solute named {name!r}.{hint} GET /v1/solutes lists them all.",
-            {"solute": [f"unknown solute {name!r}"]},
-        )
+        raise _unknown(name, "solute", solutes(), "No solute named {name!r}.", "/v1/solutes")
     return solute
+
+
+def _unknown(name: str, field: str, entries: Catalog[Any], missing: str, listing: str) -> Problem:
+    """404 for a name ``entries`` do not hold, with the closest names and the path that lists them all."""
+    close = entries.close_matches(name)
+    hint = f" Closest matches: {', '.join(close)}." if close else ""
+    return Problem(
+        404, f"{missing.format(name=name)}{hint} GET {listing} lists them all.", {field: [f"unknown {field} {name!r}"]}
+    )
 
 
 def _solute_in(name: str) -> Solute | None:
@@ -67,13 +72,7 @@ def resolve_catalog_fluid(name: str) -> Fluid:
             {"fluid": ["a solution or a mixture, not a pure fluid"]},
         )
     if fluid is None:
-        close = catalog().close_matches(name)
-        hint = f" Closest matches: {', '.join(close)}." if close else ""
-        raise Problem(
-            404,
-            f"No fluid named {name!r} in the catalog.{hint} GET /v1/fluids lists them all.",
-            {"fluid": [f"unknown fluid {name!r}"]},
-        )
+        raise _unknown(name, "fluid", catalog(), "No fluid named {name!r} in the catalog.", "/v1/fluids")
     return fluid
 
 

@@ -11,7 +11,7 @@ from service.api.catalog_lookup import resolve_catalog_fluid, resolve_solute
 from service.api.computing_path import Input, Inputs
 from service.api.numbers import Number, printable
 from service.api.problems import invalid
-from service.api.quantity_fields import UnitField, difference, quantity
+from service.api.quantity_fields import RATIO, UnitField, difference, quantity
 from service.fluids.boiling import Boiling
 from service.fluids.caller_defined import fluid_from_boiling_point, fluid_from_equation
 from service.fluids.fluid import Fluid
@@ -236,7 +236,6 @@ CONCENTRATION = Input(
     "Concentration of `solute` in the solution: mass percent (wt%, the default), g/kg, mol/kg (molality) or "
     "degBx (sucrose only).",
 )
-WATER_ACTIVITY = Unit("1", "concentration", 1.0, name="a ratio")  # a_w has no unit
 _BASES: dict[str, Basis] = {"mol/kg": "molality", "degBx": "Brix"}
 """How each concentration unit states a concentration; the others are mass fractions."""
 
@@ -266,5 +265,5 @@ def solute_fields(found: Answer, boiling: Boiling, inputs: Inputs) -> dict[str, 
         "solute": boiling.solute.id,  # type: ignore[attr-defined]
         "concentration": inputs.echo("concentration", inputs.units["concentration"]),
         "boiling_point_elevation": difference(found.boiling_point_elevation, inputs.units["temperature"]),
-        "water_activity": quantity(found.water_activity, WATER_ACTIVITY),
+        "water_activity": quantity(found.water_activity, RATIO),
     }

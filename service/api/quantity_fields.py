@@ -98,6 +98,8 @@ class QuantityField(fields.Field):
 
 DENSITY = Unit("kg/m3", "density", 1.0)  # type: ignore[arg-type]
 """The one unit densities are given in."""
+RATIO = Unit("1", "ratio", 1.0)  # type: ignore[arg-type]
+"""The unit of a ratio such as a water activity: none."""
 
 
 def quantity(value_si: Numbers, unit: Unit) -> dict[str, Any]:

@@ -115,6 +115,9 @@ def test_csv_names_the_solute_and_its_columns(client) -> None:
         ("concentration=10", 400, "concentration"),
         ("solute=sodium-chloride", 400, "concentration"),
         ("solute=xyz&concentration=10", 404, "solute"),
+        ("solute=sodium-chloride&concentration=10&concentration_unit=kPa", 400, "concentration_unit"),
+        ("solute=sodium-chloride&concentration=10&concentration_unit=wt", 400, "concentration_unit"),
+        ("solute=sodium-chloride&concentration=nan", 400, "concentration"),
     ],
 )
 def test_refusals(client, query: str, status: int, field: str) -> None:
@@ -149,3 +152,18 @@ def test_percent_is_read_as_mass_percent(client) -> None:
     percent = client.get(query + "%25").get_json()
     assert percent["concentration"] == {"value": 10, "unit": "wt%"}
     assert percent["boiling_point"] == client.get(query + "wt%25").get_json()["boiling_point"]
+
+
+def test_arrays_of_mixed_validity_name_the_points_refused(client) -> None:
+    # 40 wt% NaCl is above its solubility at any temperature (about 28 wt% near 100 degC; Sparrow 2003), so
+    # the one bad point is refused by its index and no answer is given for the others.
+    r = client.post("/v1/boiling-point", json={"solute": "NaCl", "concentration": [10, 40, 5], "pressure": 101.325})
+    body = problem(r, 422)
+    assert body["errors"]["concentration"][0].startswith("index 1: 40 wt% is above"), body
+
+
+def test_concentration_units_are_read_in_any_case(client) -> None:
+    # Unit spellings fold case where no other unit folds alike (service/physics/units.py).
+    upper = client.get("/v1/boiling-point?solute=sucrose&concentration=60&concentration_unit=BRIX&pressure=101.325")
+    exact = client.get("/v1/boiling-point?solute=sucrose&concentration=60&concentration_unit=degBx&pressure=101.325")
+    assert upper.get_json()["boiling_point"] == exact.get_json()["boiling_point"]
