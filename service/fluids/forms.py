@@ -3,7 +3,8 @@
 A catalog table (:mod:`service.fluids.schema`), a fluid a request defines
 (:mod:`service.api.fluid_input`, :mod:`service.fluids.caller_defined`) and the OpenAPI document
 all read these declarations; adding a form means adding one entry to :data:`VAPOR_PRESSURE_FORMS`
-or :data:`DENSITY_FORMS`, with its builder and its test (``tests/fluids/test_forms.py``).
+or :data:`DENSITY_FORMS`, with its builder and its test (``tests/fluids/test_forms.py``). The forms of
+solutes, built on the same declarations, are in :mod:`service.fluids.solute_forms`.
 
 Tables are SI where the form says nothing else: temperature [K], pressure [Pa], molar mass
 [kg/mol], density [kg/m3]. Sources: each builder's physics class in
@@ -25,7 +26,6 @@ from numpy.typing import ArrayLike, NDArray
 from service.fluids.boiling import LiquidDensity
 from service.physics import water
 from service.physics.liquid_density import Dippr105
-from service.physics.solutions import Conde, Olsson, PatekKlomfar, Sharqawy, SoluteEquation, Sparrow, StarzakPeacock
 from service.physics.units import Dimension, codes, resolve_unit
 from service.physics.vapor_pressure import ExtendedAntoine, VaporPressureEquation, Wagner
 
@@ -109,13 +109,6 @@ class DensityForm(Form):
     build: Callable[[Table, float], Callable[[ArrayLike], NDArray[np.float64]]]
 
 
-@dataclass(frozen=True, kw_only=True)
-class SoluteForm(Form):
-    """A water-activity form of a solute; ``build`` takes the table and the solute's molar mass [kg/mol]."""
-
-    build: Callable[[Table, float], SoluteEquation]
-
-
 F = TypeVar("F", bound=Form)
 
 
@@ -168,55 +161,6 @@ def _water_density(table: Table, molar_mass: float) -> Callable[[ArrayLike], NDA
     return water.saturated_liquid_density
 
 
-def _starzak_peacock(table: Table, molar_mass: float) -> SoluteEquation:
-    return StarzakPeacock(energy=table["Q"], b=table["b"], c=table["c"], molar_mass=molar_mass)
-
-
-def _sharqawy(table: Table, _: float) -> SoluteEquation:
-    return Sharqawy(a=tuple(table["a"]), b=tuple(table["b"]))
-
-
-def _patek_klomfar(table: Table, molar_mass: float) -> SoluteEquation:
-    return PatekKlomfar(
-        a=tuple(table["a"]), m=tuple(table["m"]), n=tuple(table["n"]), t=tuple(table["t"]), molar_mass=molar_mass
-    )
-
-
-def _conde(table: Table, _: float) -> SoluteEquation:
-    return Conde(pi=tuple(table["pi"]))
-
-
-def _sparrow(table: Table, _: float) -> SoluteEquation:
-    return Sparrow(rows=tuple(tuple(table[name]) for name in "ABCDE"))
-
-
-def _olsson(table: Table, _: float) -> SoluteEquation:
-    return Olsson(k=tuple(table["k"]), l=tuple(table["l"]), m=tuple(table["m"]))
-
-
-def _lists_of(*lengths: tuple[str, int]) -> tuple[Coefficient, ...]:
-    """List coefficients of a fixed length each (a form's table of terms)."""
-    return tuple(Coefficient(name, kind="list", most=length) for name, length in lengths)
-
-
-def _same_lengths(*names: str) -> Check:
-    def check(table: Table) -> None:
-        lengths = {len(table[name]) for name in names}
-        if len(lengths) > 1:
-            raise ValidationError(f"{', '.join(names)} need one length", names[-1])
-
-    return check
-
-
-def _exact_lengths(**lengths: int) -> Check:
-    def check(table: Table) -> None:
-        for name, length in lengths.items():
-            if len(table[name]) != length:
-                raise ValidationError(f"needs {length} numbers", name)
-
-    return check
-
-
 def _as_many_exponents(table: Table) -> None:
     if len(table["coefficients"]) != len(table["exponents"]):
         raise ValidationError("needs as many exponents as coefficients", "exponents")
@@ -227,21 +171,21 @@ def _ends_at_c(table: Table) -> None:
         raise ValidationError("t_max is above C, where the DIPPR 105 equation ends", "t_max")
 
 
-def _numbers(names: str, bounds: validate.Range | None = None) -> tuple[Coefficient, ...]:
+def numbers(names: str, bounds: validate.Range | None = None) -> tuple[Coefficient, ...]:
     return tuple(Coefficient(name, bounds=bounds) for name in names)
 
 
-def _by_key(*forms: F) -> Mapping[str, F]:
+def by_key(*forms: F) -> Mapping[str, F]:
     return {form.key: form for form in forms}
 
 
-VAPOR_PRESSURE_FORMS = _by_key(
+VAPOR_PRESSURE_FORMS = by_key(
     VaporPressureForm(
         key="antoine",
         name="Antoine equation",
         equation="log_b(p) = A - B/(t + C) in `pressure_unit` and `temperature_unit`",
         coefficients=(
-            *_numbers("ABC"),
+            *numbers("ABC"),
             Coefficient(
                 "log_base",
                 kind="choice",
@@ -273,7 +217,7 @@ VAPOR_PRESSURE_FORMS = _by_key(
         key="dippr101",
         name="DIPPR 101 equation",
         equation="ln(p/Pa) = A + B/T + C ln T + D T**E with T in K",
-        coefficients=_numbers("ABCDE"),
+        coefficients=numbers("ABCDE"),
         build=_dippr101,
     ),
     VaporPressureForm(
@@ -286,12 +230,12 @@ VAPOR_PRESSURE_FORMS = _by_key(
 )
 """The vapor-pressure forms by key, in the order the document lists them."""
 
-DENSITY_FORMS = _by_key(
+DENSITY_FORMS = by_key(
     DensityForm(
         key="dippr105",
         name="DIPPR 105 equation",
         equation="rho = A / B**(1 + (1 - T/C)**D) with A in kmol/m3, T and C in K",
-        coefficients=(*_numbers("ABC", _POSITIVE), *_numbers("D")),
+        coefficients=(*numbers("ABC", _POSITIVE), *numbers("D")),
         checks=(_ends_at_c,),
         build=_dippr105,
     ),
@@ -303,63 +247,6 @@ DENSITY_FORMS = _by_key(
     ),
 )
 """The saturated-liquid density forms by key."""
-
-
-SOLUTE_FORMS = _by_key(
-    SoluteForm(
-        key="starzak-peacock",
-        name="Starzak-Peacock water-activity equation",
-        equation="ln(gamma_w) = Q/(R T) x_s**2 (1 + b x_s + c x_s**2), a_w = gamma_w (1 - x_s), Q in J/mol",
-        coefficients=_numbers("Qbc"),
-        build=_starzak_peacock,
-    ),
-    SoluteForm(
-        key="sharqawy-2010",
-        name="Sharqawy-Lienhard-Zubair boiling-point elevation",
-        equation="BPE = A S**2 + B S, A = (a0 + a1 t + a2 t**2) 1e-6, B = (b0 + b1 t + b2 t**2) 1e-3, S in g/kg, "
-        "t in degC",
-        coefficients=_lists_of(("a", 3), ("b", 3)),
-        checks=(_exact_lengths(a=3, b=3),),
-        build=_sharqawy,
-    ),
-    SoluteForm(
-        key="patek-klomfar",
-        name="Patek-Klomfar vapor-pressure equation",
-        equation="p = p_w(T - sum a_i x**m_i (0.4 - x)**n_i (T/Tc)**t_i), x the solute's mole fraction",
-        coefficients=_lists_of(("a", 12), ("m", 12), ("n", 12), ("t", 12)),
-        checks=(_same_lengths("a", "m", "n", "t"),),
-        build=_patek_klomfar,
-    ),
-    SoluteForm(
-        key="conde-2004",
-        name="Conde relative vapor-pressure equation",
-        equation="a_w = pi_25(w) (A(w) + B(w) T/647.26 K), with pi0 to pi9",
-        coefficients=_lists_of(("pi", 10)),
-        checks=(_exact_lengths(pi=10),),
-        build=_conde,
-    ),
-    SoluteForm(
-        key="sparrow-2003",
-        name="Sparrow vapor-pressure equation",
-        equation="p/MPa = A + B t + C t**2 + D t**3 + E t**4, each a quartic in the mass fraction, t in degC",
-        coefficients=_lists_of(*((name, 5) for name in "ABCDE")),
-        checks=(_exact_lengths(**dict.fromkeys("ABCDE", 5)),),
-        build=_sparrow,
-    ),
-    SoluteForm(
-        key="olsson-1997",
-        name="Olsson-Jernqvist-Aly vapor-pressure equation",
-        equation="ln(p/kPa) = (a1 + a2 t)/(t - a3), a_i polynomials in ln(1 - w) with coefficients k, l, m, t in degC",
-        coefficients=_lists_of(("k", 12), ("l", 12), ("m", 12)),
-        build=_olsson,
-    ),
-)
-"""The water-activity forms of solutes by key."""
-
-
-def solute_equation_from_entry(table: Table, molar_mass: float) -> SoluteEquation:
-    """The water-activity equation of a validated ``water_activity`` table, molar mass [kg/mol]."""
-    return SOLUTE_FORMS[table["form"]].build(table, molar_mass)
 
 
 def equation_from_entry(table: Table, critical_temperature: float, critical_pressure: float) -> VaporPressureEquation:

@@ -16,8 +16,14 @@ from marshmallow import Schema, ValidationError, fields, validate, validates, va
 from numpy.typing import ArrayLike, NDArray
 
 from service.fluids.catalog import Catalog, CatalogError, messages
-from service.fluids.forms import SOLUTE_FORMS, solute_equation_from_entry
 from service.fluids.schema import FormTable, cas_check_digit_ok
+from service.fluids.solute_forms import (
+    SOLUTE_FORMS,
+    SOLUTION_DENSITY_FORMS,
+    solute_equation_from_entry,
+    solution_density_from_entry,
+)
+from service.physics.solution_density import SolutionDensity
 from service.physics.solutions import SoluteEquation
 
 SOLUTE_DIR = Path(__file__).with_name("data") / "solutes"
@@ -43,6 +49,17 @@ class Curve:
 
 
 @dataclass(frozen=True)
+class Density:
+    """A solution density correlation with its stated temperature range [K] and citation."""
+
+    equation: SolutionDensity = field(repr=False)
+    t_min: float
+    t_max: float
+    method: str
+    source: str
+
+
+@dataclass(frozen=True)
 class Solute:
     """A solute of the built-in list: identity, water-activity equation with its stated temperature range [K],
     the stated concentration range and the solubility along temperature."""
@@ -63,6 +80,7 @@ class Solute:
     stated_max: Curve
     solubility: Curve | None
     notes: tuple[str, ...] = ()
+    density: Density | None = None
 
 
 def _points() -> fields.List:
@@ -94,6 +112,7 @@ class SoluteEntrySchema(Schema):
     brix = fields.Boolean(load_default=False)
     notes = fields.List(fields.String(validate=validate.Length(min=10)), load_default=list)
     water_activity = FormTable(SOLUTE_FORMS, unknown="raise", required=True)
+    density = FormTable(SOLUTION_DENSITY_FORMS, unknown="raise", load_default=None)
     concentration = fields.Nested(
         Schema.from_dict(
             {
@@ -140,7 +159,13 @@ def solute_from_entry(entry: dict[str, Any]) -> Solute:
         stated_max=_curve(stated["stated_max"], stated["source"]),
         solubility=None if solubility is None else _curve(solubility["points"], solubility["source"]),
         notes=tuple(entry["notes"]),
+        density=None if entry["density"] is None else _density(entry["density"]),
     )
+
+
+def _density(table: dict[str, Any]) -> Density:
+    equation = solution_density_from_entry(table)
+    return Density(equation, table["t_min"], table["t_max"], table["method"], table["source"])
 
 
 def load_solute_file(path: Path) -> Solute:

@@ -105,10 +105,16 @@ class Solution:
     def critical_temperature(self) -> float:
         return self.water.critical_temperature
 
-    @property
+    @cached_property
     def liquid_density(self) -> LiquidDensity | None:
-        """No solution density correlation is built in; a request may give the density."""
-        return None
+        """The solute's density correlation at this solution's concentrations, where its data give one."""
+        density = self.solute.density
+        if density is None:
+            return None
+        w = self.mass_fraction
+        return LiquidDensity(
+            lambda t: density.equation.density(t, w), density.t_min, density.t_max, density.method, density.source
+        )
 
     @property
     def boiling_pressure_limits(self) -> Limits:

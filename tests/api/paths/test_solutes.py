@@ -167,3 +167,13 @@ def test_concentration_units_are_read_in_any_case(client) -> None:
     upper = client.get("/v1/boiling-point?solute=sucrose&concentration=60&concentration_unit=BRIX&pressure=101.325")
     exact = client.get("/v1/boiling-point?solute=sucrose&concentration=60&concentration_unit=degBx&pressure=101.325")
     assert upper.get_json()["boiling_point"] == exact.get_json()["boiling_point"]
+
+
+def test_npsh_of_caustic_uses_its_density_unless_given_one(client) -> None:
+    # Olsson, Jernqvist and Aly (1997) give the density of NaOH solutions; a caller's measured one replaces it.
+    query = "/v1/npsh-available?solute=NaOH&concentration=50&temperature=20&pressure=101.325&static_head=2"
+    found = client.get(query).get_json()
+    assert found["liquid_density"]["value"] == pytest.approx(1520.0, rel=0.005)  # Dow: specific gravity 1.52
+    assert "Olsson-Jernqvist-Aly density equation" in found["method"]
+    given = client.get(query + "&liquid_density=1530").get_json()
+    assert given["liquid_density"] == {"value": 1530, "unit": "kg/m3"}
