@@ -38,14 +38,17 @@ SOLUTES = {  # id: the top of the concentrations sent [wt%], inside each equatio
 }
 
 
-def poster(extra: dict[str, Any]) -> Any:
-    """A POST of the pressures [kPa] with ``extra`` fields (a solute and its concentrations) to /v1/boiling-point."""
+def poster(extra: dict[str, Any], sizes: list[int]) -> Any:
+    """A POST of the pressures [kPa] with ``extra`` fields (a solute and its concentrations) to /v1/boiling-point;
+    the bytes of each answer go to ``sizes``."""
 
     def post(conn: http.client.HTTPConnection, pressures: np.ndarray) -> np.ndarray:
         body = orjson.dumps({"pressure": pressures, **extra}, option=orjson.OPT_SERIALIZE_NUMPY)
         conn.request("POST", "/v1/boiling-point", body, {"Content-Type": "application/json"})
         response = conn.getresponse()
-        answer = orjson.loads(response.read())
+        text = response.read()
+        sizes.append(len(body) + len(text))
+        answer = orjson.loads(text)
         assert response.status == 200, answer
         return np.asarray(answer["boiling_point"]["value"])
 
@@ -54,9 +57,10 @@ def poster(extra: dict[str, Any]) -> Any:
 
 def main() -> None:
     pressures = np.geomspace(20.0, 200.0, POINTS)  # kPa: every solute boils inside its stated range here
-    posts = {"water": poster({})}
+    sizes: dict[str, list[int]] = {name: [] for name in ("water", *SOLUTES)}
+    posts = {"water": poster({}, sizes["water"])}
     for solute, top in SOLUTES.items():
-        posts[solute] = poster({"solute": solute, "concentration": np.linspace(0.0, top, POINTS)})
+        posts[solute] = poster({"solute": solute, "concentration": np.linspace(0.0, top, POINTS)}, sizes[solute])
     times: dict[str, list[float]] = {name: [] for name in posts}
     with gunicorn(free_port()) as (base, _):
         url = urlparse(base)
@@ -68,16 +72,24 @@ def main() -> None:
                 times[name] += timed_posts(conn, post, pressures, REPEATS)
         conn.close()
     water = statistics.median(times["water"])
-    rows = ["| liquid | median s | ratio to water | within 2x |", "| --- | ---: | ---: | --- |"]
+    rows = [
+        "| liquid | median s | ratio to water | within 2x | MB sent and received | ratio to water |",
+        "| --- | ---: | ---: | --- | ---: | ---: |",
+    ]
     for name, measured in times.items():
         median = statistics.median(measured)
-        ratio = median / water
-        rows.append(f"| {name} | {median:.4f} | {ratio:.2f} | {'yes' if ratio <= TARGET else 'no'} |")
+        ratio, volume = median / water, sizes[name][-1]
+        rows.append(
+            f"| {name} | {median:.4f} | {ratio:.2f} | {'yes' if ratio <= TARGET else 'no'} | {volume / 1e6:.1f} "
+            f"| {volume / sizes['water'][-1]:.2f} |"
+        )
     rows += [
         "",
         f"{POINTS:,}-point JSON POSTs to /v1/boiling-point (pressures 20 to 200 kPa; for a solution, concentrations "
         f"from 0 to the top given in bench/solutions.py), {ROUNDS} rounds of {REPEATS} per liquid, alternating, "
-        "over one kept-alive loopback connection to the gevent workers; medians.",
+        "over one kept-alive loopback connection to the gevent workers; medians. A solution's request carries its "
+        "concentrations and its answer three more arrays (concentration, elevation, water activity), so it moves "
+        "about twice the bytes: the client's decoding, the transfer and the server's encoding all scale with them.",
     ]
     write_section("solutions", f"Measured {machine()}.\n\n" + "\n".join(rows))
 
