@@ -1,0 +1,236 @@
+"""A liquid mixture of catalog fluids: its bubble and dew points by modified Raoult's law.
+
+The activity model comes from the built-in binary pairs (:mod:`service.fluids.pairs`), or is an ideal
+solution where the caller asks for one; a pair without parameters is refused, never answered as ideal.
+The method's limits are data here: a low-pressure method (a warning above 0.5 MPa, a refusal above
+1 MPa), every component below its critical temperature, and no pair that forms two liquid phases at the
+temperature of the answer. SI throughout: temperature [K], pressure [Pa], mole fractions.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Mapping, Sequence
+from dataclasses import dataclass, field
+from functools import cache, cached_property
+from typing import Literal
+
+import numpy as np
+from numpy.typing import NDArray
+
+from service.fluids.cautions import Caution, Shown, Warnings, literal
+from service.fluids.fluid import Fluid
+from service.fluids.limits import Refusal, any_of, refuse_outside
+from service.fluids.pairs import NrtlPair
+from service.physics.activity.nrtl import Nrtl
+from service.physics.equilibrium import ModifiedRaoult
+
+Model = Literal["auto", "nrtl", "ideal"]
+WARN_PRESSURE = 0.5e6
+"""Above this [Pa] an ideal vapor departs from real vapors by a few percent: a warning (common practice, no source)."""
+MAX_PRESSURE = 1.0e6
+"""Above this [Pa] modified Raoult's law is not answered (common practice, no source)."""
+SPLIT_GRID = np.linspace(0.01, 0.99, 99)
+"""Compositions at which a pair's liquid is tested for splitting into two phases."""
+SPLIT_MARGIN = 20.0
+"""How far [K] beyond a pair's stated range its liquid is tested for splitting (the answers may reach there)."""
+
+Array = NDArray[np.float64]
+
+
+@dataclass(frozen=True)
+class Equilibrium:
+    """A bubble or dew point: the temperature [K] and pressure [Pa], the other phase's composition, gamma."""
+
+    temperature: Array
+    pressure: Array
+    other: Array
+    gamma: Array
+    warnings: Warnings = field(default_factory=list)
+
+
+@dataclass(frozen=True)
+class Mixture:
+    """Liquid mixtures of ``components`` (catalog fluids, in the request's order) under one activity model."""
+
+    components: tuple[Fluid, ...]
+    model: Model
+    pairs: tuple[NrtlPair, ...]
+    """The parameter sets used, in the order of :func:`itertools.combinations` of the components."""
+
+    @cached_property
+    def _nrtl(self) -> Nrtl | None:
+        if self.model == "ideal":
+            return None
+        n = len(self.components)
+        index = {fluid.id: i for i, fluid in enumerate(self.components)}
+        b, alpha = np.zeros((n, n)), np.zeros((n, n))
+        for pair in self.pairs:
+            i, j = (index[c] for c in pair.components)
+            b[i, j], b[j, i] = pair.b_ij, pair.b_ji
+            alpha[i, j] = alpha[j, i] = pair.alpha
+        return Nrtl(np.zeros((n, n)), b, alpha)
+
+    def log_gamma(self, x: Array, temperature: Array) -> Array:
+        """ln gamma (N, n) at mole fractions ``x`` (N, n) and ``temperature`` [K] (N,)."""
+        return np.zeros_like(x) if self._nrtl is None else self._nrtl.log_gamma(x, temperature)
+
+    @cached_property
+    def equilibrium(self) -> ModifiedRaoult:
+        lows, highs = zip(*(fluid.temperature_limits for fluid in self.components), strict=True)
+        return ModifiedRaoult(
+            lambda t: np.stack([fluid.saturation_pressure(t) for fluid in self.components], axis=-1),
+            lambda t: np.stack([fluid.saturation_pressure_slope(t) for fluid in self.components], axis=-1),
+            self.log_gamma,
+            max(lows),
+            min(highs),
+        )
+
+    @property
+    def citations(self) -> list[tuple[str, str]]:
+        """(method, source) of the activity model and of each component's vapor-pressure equation."""
+        model = [
+            ("NRTL (Renon and Prausnitz 1968)", "; ".join(f"{'/'.join(p.components)}: {p.source}" for p in self.pairs))
+        ]
+        return [*(model if self.pairs else []), *((f.method, f.source) for f in self.components)]
+
+    def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:
+        """Where liquid ``x`` at ``pressure`` [Pa] starts to boil."""
+        warnings = self._check_pressure(pressure)
+        start = (x * np.stack([f.saturation_temperature(pressure) for f in self._boiling_at(pressure)], -1)).sum(-1)
+        t, y, gamma = self.equilibrium.bubble_temperature(pressure, x, start)
+        t = np.where(x.max(-1) == 1.0, start, t)  # a pure component boils exactly where its own equation says
+        return Equilibrium(t, pressure, y, gamma, warnings + self._check_temperature(t, "pressure"))
+
+    def dew_point(self, pressure: Array, y: Array) -> Equilibrium:
+        """Where vapor ``y`` at ``pressure`` [Pa] starts to condense."""
+        warnings = self._check_pressure(pressure)
+        start = (y * np.stack([f.saturation_temperature(pressure) for f in self._boiling_at(pressure)], -1)).sum(-1)
+        t, x, gamma = self.equilibrium.dew_temperature(pressure, y, start)
+        t = np.where(y.max(-1) == 1.0, start, t)
+        return Equilibrium(t, pressure, x, gamma, warnings + self._check_temperature(t, "pressure"))
+
+    def bubble_pressure(self, temperature: Array, x: Array) -> Equilibrium:
+        """The pressure [Pa] at which liquid ``x`` at ``temperature`` [K] starts to boil."""
+        warnings = self._check_temperature(temperature, "temperature")
+        p, y, gamma = self.equilibrium.bubble_pressure(temperature, x)
+        return Equilibrium(temperature, p, y, gamma, warnings + self._check_pressure(p))
+
+    def dew_pressure(self, temperature: Array, y: Array) -> Equilibrium:
+        """The pressure [Pa] at which vapor ``y`` at ``temperature`` [K] starts to condense."""
+        warnings = self._check_temperature(temperature, "temperature")
+        p, x, gamma = self.equilibrium.dew_pressure(temperature, y)
+        return Equilibrium(temperature, p, x, gamma, warnings + self._check_pressure(p))
+
+    def _boiling_at(self, pressure: Array) -> tuple[Fluid, ...]:
+        """The components, each refused where it does not boil at ``pressure`` (the start needs its boiling point)."""
+        for fluid in self.components:
+            low, high = fluid.pressure_limits
+            name = literal(fluid.name)
+            refuse_outside(
+                "pressure",
+                "pressure",
+                pressure,
+                low,
+                high,
+                f"{{limit}}, the lowest pressure at which {name} boils by its equation",
+                f"{{limit}}, the highest pressure at which {name} boils by its equation",
+            )
+        return self.components
+
+    def _check_pressure(self, pressure: Array) -> Warnings:
+        """Refuse above 1 MPa; warn above 0.5 MPa."""
+        refuse_outside(
+            "pressure",
+            "pressure",
+            pressure,
+            None,
+            MAX_PRESSURE,
+            "",
+            "{limit}: modified Raoult's law (an ideal vapor) is a low-pressure method",
+        )
+        high = pressure > WARN_PRESSURE
+        if not any_of(high):
+            return []
+        return [
+            Caution(
+                "Above 0.5 MPa the vapor departs from an ideal gas by a few percent: the answer is approximate.",
+                high,
+            )
+        ]
+
+    def _check_temperature(self, temperature: Array, field: str) -> Warnings:
+        """Refuse where a component is above its critical temperature, outside its equation's reach, or where a
+        pair forms two liquid phases; warn where a pair's parameters are used outside their range."""
+        for fluid in self.components:
+            low, high = fluid.temperature_limits
+            name = literal(fluid.name)
+            refuse_outside(
+                field,
+                "temperature",
+                temperature,
+                low,
+                min(high, fluid.critical_temperature),
+                f"{{limit}}, the lowest temperature at which the equation for {name} answers",
+                f"{{limit}}, the critical temperature of {name} (or its equation's end): above it {name} is a gas "
+                "that dissolves, and Raoult's law does not hold",
+            )
+        warnings: Warnings = []
+        for pair in self.pairs:
+            names = " and ".join(literal(c) for c in pair.components)
+            split = np.interp(temperature, *_unstable(pair)) > 0.0
+            if any_of(split):
+                raise Refusal(
+                    f"{names} form two liquid phases at this temperature over part of their composition range "
+                    "(the NRTL parameters predict it); a single-liquid bubble or dew point is not answered there.",
+                    {field: ["two liquid phases at this temperature"]},
+                )
+            outside = (temperature < pair.t_min) | (temperature > pair.t_max)
+            if any_of(outside):
+                warnings.append(
+                    Caution(
+                        f"The NRTL parameters of {names} are used outside the temperatures they were fitted at "
+                        "(about {low} to {high}): extrapolated, accuracy unknown.",
+                        outside,
+                        {"low": Shown(pair.t_min, "temperature"), "high": Shown(pair.t_max, "temperature")},
+                    )
+                )
+        return warnings
+
+
+@cache
+def _unstable(pair: NrtlPair) -> tuple[Array, Array]:
+    """Temperatures [K] around the pair's range, and 1 where its liquid is unstable at some composition, else 0:
+    where d2(g_mix/RT)/dx2 < 0, g_mix/RT = sum x ln(x gamma) (the spinodal; at a temperature where a binary has
+    one, it has two liquid phases over a composition range). Computed once per pair."""
+    temperatures = np.arange(pair.t_min - SPLIT_MARGIN, pair.t_max + SPLIT_MARGIN + 0.5, 1.0)
+    model = Nrtl(np.zeros((2, 2)), np.array([[0.0, pair.b_ij], [pair.b_ji, 0.0]]), (1 - np.eye(2)) * pair.alpha)
+    x = np.stack([SPLIT_GRID, 1.0 - SPLIT_GRID], axis=-1)[None, :, :]
+    t = temperatures[:, None]
+    g = (x * (np.log(x) + model.log_gamma(x, t))).sum(-1)
+    curvature = np.diff(g, n=2, axis=-1)
+    return temperatures, np.any(curvature < 0.0, axis=-1).astype(float)
+
+
+def mixture(components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair], model: Model) -> Mixture:
+    """The mixture of ``components`` under ``model``: ``ideal`` (Raoult's law), or ``nrtl`` / ``auto`` with the
+    built-in pair of every two components; a pair without parameters is refused."""
+    ids = [fluid.id for fluid in components]
+    if len(set(ids)) != len(ids):
+        raise Refusal("A component is named twice.", {"components": ["repeated"]}, 400)
+    if len(ids) < 2:
+        raise Refusal("A mixture has two components or more.", {"components": ["fewer than two"]}, 400)
+    if model == "ideal":
+        return Mixture(tuple(components), model, ())
+    found, missing = [], []
+    for i, first in enumerate(ids):
+        for second in ids[i + 1 :]:
+            pair = pairs.get(frozenset((first, second)))
+            (found if pair else missing).append(pair or f"{first}/{second}")
+    if missing:
+        raise Refusal(
+            f"No built-in NRTL parameters for {', '.join(missing)} (GET /v1/pairs lists them); a group-contribution "
+            "prediction is not built yet. An ideal solution (model=ideal) can be far off for such a pair: ask for it "
+            "only where Raoult's law is known to hold.",
+            {"components": [f"no parameters for {m}" for m in missing]},
+        )
+    return Mixture(tuple(components), model, tuple(found))
