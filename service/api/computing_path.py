@@ -139,6 +139,9 @@ class ComputingPath:
     example: dict[str, Any]
     body_options: Mapping[str, fields.Field] = field(default_factory=dict)
     """Options that take another field in a POST body than in the query string."""
+    row_options: tuple[str, ...] = ()
+    """Options that may give one row per point (a list of lists in a POST body, loaded as a 2-D array): their
+    rows broadcast with the input arrays as one more array would."""
     errors: tuple[int, ...] = (400, 404, 422)
     """Problem statuses of the GET; the POST adds 408, 413 and 415."""
     fields: dict[str, dict[str, fields.Field]] = field(init=False, repr=False)
@@ -222,7 +225,12 @@ class ComputingPath:
                     f"{name}: a value is too large to be a {spec.dimension} in SI units.",
                     {name: ["beyond the range of double-precision numbers once converted to SI"]},
                 )
-        shape = _broadcast_shape({name: np.shape(v) for name, v in values.items()})
+        shapes = {name: np.shape(v) for name, v in values.items()}
+        for name in self.row_options:
+            rows = loaded.get(name)
+            if isinstance(rows, np.ndarray) and rows.ndim == 2:
+                shapes[name] = rows.shape[:1]
+        shape = _broadcast_shape(shapes)
         tag = loaded.get("tag")
         if isinstance(tag, list) and (len(tag),) != (shape or (1,)):
             raise invalid(

@@ -46,10 +46,13 @@ def finish(
         answer = {"tag": tag, **answer}
     if digits is None:
         return answer
-    return {
-        name: {**value, "value": significant(value["value"], digits)} if _is_quantity(value) else value
-        for name, value in answer.items()
-    }
+
+    def rounded(value: Any) -> Any:
+        if _is_quantity(value):
+            return {**value, "value": significant(value["value"], digits)}
+        return {k: rounded(v) for k, v in value.items()} if _is_group(value) else value
+
+    return {name: rounded(value) for name, value in answer.items()}
 
 
 def render(body: dict[str, Any], fmt: str, shape: tuple[int, ...] = ()) -> tuple[bytes, str]:
@@ -108,10 +111,26 @@ def _is_quantity(value: Any) -> bool:
     return isinstance(value, dict) and set(value) == {"value", "unit"}
 
 
+def _is_group(value: Any) -> bool:
+    """A dict of quantities by name (one per component of a mixture, say)."""
+    return isinstance(value, dict) and bool(value) and all(_is_quantity(v) for v in value.values())
+
+
+def _flat(body: dict[str, Any]) -> dict[str, Any]:
+    """The answer with each group's quantities as fields of their own, ``group.name``."""
+    out: dict[str, Any] = {}
+    for name, value in body.items():
+        if _is_group(value):
+            out |= {f"{name}.{key}": quantity for key, quantity in value.items()}
+        else:
+            out[name] = value
+    return out
+
+
 def as_text(body: dict[str, Any]) -> str:
     """One readable line per field: ``boiling_point: 95.2498 degC``; one line per warning."""
     lines = []
-    for name, value in body.items():
+    for name, value in _flat(body).items():
         if _is_quantity(value):
             numbers = _listed(value["value"])
             lines.append(f"{name}: {' '.join(_number(v) for v in numbers)} {value['unit']}")
@@ -124,7 +143,7 @@ def as_text(body: dict[str, Any]) -> str:
     return "\n".join(lines) + "\n"
 
 
-_CSV_NOTES = ("fluid", "solute", "model", "method", "source")
+_CSV_NOTES = ("fluid", "solute", "components", "model", "method", "source")
 """Fields of an answer that a CSV answer carries in comment lines above its header."""
 
 
@@ -138,12 +157,12 @@ def as_csv(body: dict[str, Any], shape: tuple[int, ...]) -> str:
     """
     rows = int(np.prod(shape)) if shape else 1
     warnings = [w if isinstance(w, Caution) else Caution(w, True) for w in body.get("warnings", ())]
-    notes = [f"# {name}: {body[name]}" for name in _CSV_NOTES if body.get(name)]
+    notes = [f"# {name}: {_note(body[name])}" for name in _CSV_NOTES if body.get(name)]
     notes += [f"# warning {i}: {w.text}" for i, w in enumerate(warnings, start=1)]
     notes = [" ".join(note.splitlines()) for note in notes]  # one line each, whatever a name holds
     numbers, number_headers = [], []
     labels: dict[str, list[str]] = {}
-    for name, value in body.items():
+    for name, value in _flat(body).items():
         if _is_quantity(value):
             number_headers.append(f"{name} [{value['unit']}]")
             numbers.append(np.broadcast_to(np.asarray(value["value"], dtype=float), shape or (1,)))
@@ -156,6 +175,10 @@ def as_csv(body: dict[str, Any], shape: tuple[int, ...]) -> str:
     header = ",".join([*(["tag"] if tag else []), *number_headers, *labels])
     lines = [*notes, header, *(map(",".join, zip(*columns, strict=True)) if rows else ())]
     return "\n".join(lines) + "\n"
+
+
+def _note(value: str | list[str]) -> str:
+    return ", ".join(value) if isinstance(value, list) else value
 
 
 def _number_rows(columns: list[np.ndarray]) -> list[str]:

@@ -21,6 +21,8 @@ from service.fluids.cautions import Caution, Shown, Warnings, literal
 from service.fluids.fluid import Fluid
 from service.fluids.limits import Refusal, any_of, refuse_outside
 from service.fluids.pairs import NrtlPair
+from service.fluids.questions import Answer
+from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
 from service.physics.activity.nrtl import Nrtl
 from service.physics.equilibrium import ModifiedRaoult
 
@@ -234,3 +236,92 @@ def mixture(components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair
             {"components": [f"no parameters for {m}" for m in missing]},
         )
     return Mixture(tuple(components), model, tuple(found))
+
+
+Basis = Literal["mole", "mass"]
+
+
+@dataclass
+class PhasePoint(Answer):
+    """A bubble or dew point, in the shape of the request's points: the temperature [K] and pressure [Pa], the
+    other phase's composition and the K-values and activity coefficients (..., n)."""
+
+    local: LocalPressure | None = None
+    temperature: Array | None = None
+    pressure: Array | None = None
+    other: Array | None = None
+    k_values: Array | None = None
+    gamma: Array | None = None
+
+
+def phase_point(
+    mix: Mixture,
+    dew: bool,
+    fractions: Array,
+    basis: Basis,
+    readings: PressureReadings | None = None,
+    temperature: Array | None = None,
+) -> PhasePoint:
+    """Where a liquid of composition ``fractions`` (..., n) starts to boil (``dew`` False: its bubble point) or a
+    vapor of that composition starts to condense (``dew`` True), at the pressure ``readings`` describe or at
+    ``temperature`` [K]; compositions in ``basis``, the answer's in the same."""
+    if (readings is None) == (temperature is None):
+        raise Refusal(
+            "Give a pressure (as /v1/boiling-point takes it) or a temperature, not both.",
+            {"temperature": ["give a pressure or a temperature"]},
+            400,
+        )
+    molar_masses = np.array([fluid.molar_mass or np.nan for fluid in mix.components])
+    moles = _in_moles(_composition(fractions, len(mix.components)), basis, molar_masses)
+    shape = moles.shape[:-1]
+    flat = moles.reshape(-1, moles.shape[-1])
+    answer = PhasePoint()
+    if readings is not None:
+        answer.local = local = local_pressure(readings)
+        pressure = np.broadcast_to(local.value, shape).reshape(-1)
+        found = (mix.dew_point if dew else mix.bubble_point)(pressure, flat)
+    else:
+        t = np.broadcast_to(temperature, shape).reshape(-1)
+        found = (mix.dew_pressure if dew else mix.bubble_pressure)(t, flat)
+    pure = np.stack([fluid.saturation_pressure(found.temperature) for fluid in mix.components], axis=-1)
+    answer.temperature = found.temperature.reshape(shape)
+    answer.pressure = found.pressure.reshape(shape)
+    answer.gamma = found.gamma.reshape(moles.shape)
+    answer.k_values = (found.gamma * pure / found.pressure[:, None]).reshape(moles.shape)
+    answer.other = _from_moles(found.other, basis, molar_masses).reshape(moles.shape)
+    answer.warnings += found.warnings
+    answer.citations += mix.citations
+    answer.cite(None, air=None if answer.local is None else answer.local.note)
+    return answer
+
+
+def _composition(fractions: Array, count: int) -> Array:
+    """The fractions, each row checked: ``count`` numbers, none negative, summing to 1 within 1e-6."""
+    if fractions.shape[-1] != count:
+        raise Refusal(
+            f"fractions has {fractions.shape[-1]} numbers for {count} components: give one per component, in order.",
+            {"fractions": ["one per component"]},
+            400,
+        )
+    if np.any(fractions < 0.0):
+        raise Refusal("A fraction is negative.", {"fractions": ["negative"]}, 400)
+    sums = fractions.sum(axis=-1)
+    off = np.abs(sums - 1.0) > 1e-6
+    if any_of(off):
+        first = float(np.ravel(sums)[np.flatnonzero(np.ravel(off))[0]])
+        raise Refusal(f"fractions sum to {first:.9g}, not 1 (within 1e-6).", {"fractions": ["sum is not 1"]}, 400)
+    return fractions / sums[..., None]
+
+
+def _in_moles(fractions: Array, basis: Basis, molar_masses: Array) -> Array:
+    if basis == "mole":
+        return fractions
+    moles = fractions / molar_masses
+    return moles / moles.sum(axis=-1, keepdims=True)
+
+
+def _from_moles(moles: Array, basis: Basis, molar_masses: Array) -> Array:
+    if basis == "mole":
+        return moles
+    mass = moles * molar_masses
+    return mass / mass.sum(axis=-1, keepdims=True)

@@ -12,8 +12,10 @@ from marshmallow import ValidationError, fields
 
 from service.api.computing_path import COMPUTING_PATHS
 from service.api.field_loader import FieldLoader
-from service.api.paths import margins, saturation, standard_atmosphere  # noqa: F401 (registers COMPUTING_PATHS)
+from service.api.paths import blueprints
 from service.api.quantity_fields import Quantity
+
+blueprints()  # imports every path module in the package's order, which fills COMPUTING_PATHS as the app does
 
 # Queries and bodies of every kind: valid, wrong types, unknown keys, NaN, bad units, nested fluids.
 SAMPLES: list[dict[str, Any]] = [

@@ -1,0 +1,215 @@
+"""Liquid mixtures: bubble and dew points, and the built-in binary pairs."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+from flask import Blueprint, Response, current_app
+from marshmallow import ValidationError, fields, validate
+
+from service.api import answer_schemas
+from service.api.answer_cache import cacheable
+from service.api.catalog_lookup import catalog, resolve_catalog_fluid
+from service.api.computing_path import ComputingPath, Input, Inputs
+from service.api.numbers import finite_numbers, parse_number, printable
+from service.api.openapi import GUARDED, NOT_MODIFIED, document_get, json_answer, problem_responses
+from service.api.pressure_inputs import PRESSURE_INPUTS, pressure_fields, readings
+from service.api.problems import invalid
+from service.api.quantity_fields import RATIO, quantity
+from service.api.rendering import provenance
+from service.fluids.mixture import Basis, Model, mixture, phase_point
+from service.fluids.pairs import NrtlPair
+from service.physics.units import UNITS, Unit
+
+blueprint = Blueprint("mixtures", __name__)
+_MOST_COMPONENTS = 10
+
+
+class ComponentsField(fields.Field):
+    """Catalog names: comma-separated text (a query string) or an array of strings."""
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> list[str]:
+        names = value.split(",") if isinstance(value, str) else value
+        if not isinstance(names, list) or not all(isinstance(n, str) for n in names):
+            raise ValidationError("must be catalog names, comma-separated or as an array of strings")
+        names = [n.strip() for n in names]
+        if not 2 <= len(names) <= _MOST_COMPONENTS or not all(names):
+            raise ValidationError(f"give 2 to {_MOST_COMPONENTS} names, none empty")
+        for name in names:
+            printable(name)
+        return names
+
+
+class FractionsField(fields.Field):
+    """One composition (comma-separated text, or an array of numbers) or, in a POST body, one per point (an
+    array of arrays of one length): a float array of 1 or 2 dimensions."""
+
+    def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> np.ndarray:
+        if isinstance(value, str):
+            return np.array([parse_number(text.strip()) for text in value.split(",")])
+        if isinstance(value, list) and value and all(isinstance(row, list) for row in value):
+            rows = [np.atleast_1d(finite_numbers(row)) for row in value]
+            if len({row.size for row in rows}) != 1:
+                raise ValidationError("every composition has one number per component")
+            return np.stack(rows)
+        array = finite_numbers(value)
+        if not isinstance(array, np.ndarray) or array.ndim != 1 or not array.size:
+            raise ValidationError("must be numbers, one per component, or an array of such arrays")
+        return array
+
+
+COMPONENTS = ComponentsField(
+    metadata={
+        "description": "Catalog ids or names of the components (2 to 10), comma-separated in a query string.",
+        "oneOf": [{"type": "string"}, {"type": "array", "items": {"type": "string"}, "minItems": 2, "maxItems": 10}],
+        "example": "ethanol,water",
+    },
+)
+FRACTIONS = FractionsField(
+    metadata={
+        "description": "Fractions of the components in `basis`, in their order, summing to 1 within 1e-6; in a POST "
+        "body also an array of such arrays, one composition per point.",
+        "oneOf": [
+            {"type": "string"},
+            {"type": "array", "items": {"type": "number"}},
+            {"type": "array", "items": {"type": "array", "items": {"type": "number"}}},
+        ],
+        "example": "0.1,0.9",
+    },
+)
+BASIS = fields.String(
+    load_default="mole",
+    validate=validate.OneOf(["mole", "mass"]),
+    metadata={"description": "Whether fractions are mole or mass fractions, in the request and the answer."},
+)
+MODEL = fields.String(
+    load_default="auto",
+    validate=validate.OneOf(["auto", "nrtl", "ideal"]),
+    metadata={
+        "description": "auto: the built-in NRTL parameters of every pair (a pair without them is refused); nrtl: "
+        "the same; ideal: Raoult's law, for mixtures known to be ideal."
+    },
+)
+TEMPERATURE = Input("temperature", "Temperature, instead of a pressure: the answer is then a pressure.")
+
+
+def pairs() -> dict[frozenset[str], NrtlPair]:
+    return current_app.extensions["pairs"]
+
+
+def _answer(inputs: Inputs, dew: bool) -> dict[str, Any]:
+    for name in ("components", "fractions"):
+        if inputs.options.get(name) is None:
+            raise invalid(name, "is required")
+    components = [resolve_catalog_fluid(name) for name in inputs.options["components"]]
+    model: Model = inputs.options["model"]
+    mix = mixture(components, pairs(), model)
+    fractions = inputs.options["fractions"]
+    basis: Basis = inputs.options["basis"]
+    rows = np.broadcast_to(fractions, (*inputs.shape, fractions.shape[-1]))
+    given_pressure = any(inputs.get(name) is not None for name in PRESSURE_INPUTS)
+    found = phase_point(mix, dew, rows, basis, readings(inputs) if given_pressure else None, inputs.get("temperature"))
+    p_unit, t_unit = inputs.units["pressure"], inputs.units["temperature"]
+    kind = "dew" if dew else "bubble"
+    if given_pressure:
+        head = {**pressure_fields(inputs, found.local, p_unit), f"{kind}_point": quantity(found.temperature, t_unit)}
+    else:
+        head = {"temperature": inputs.echo("temperature", t_unit), f"{kind}_pressure": quantity(found.pressure, p_unit)}
+    ids = [fluid.id for fluid in mix.components]
+    fraction = Unit(f"{basis} fraction", "ratio", 1.0)  # type: ignore[arg-type]
+
+    def by_component(values: np.ndarray, unit: Unit) -> dict[str, Any]:
+        return {name: quantity(values[..., i], unit) for i, name in enumerate(ids)}
+
+    answer = {
+        "components": ids,
+        **head,
+        ("liquid_composition" if dew else "vapor_composition"): by_component(found.other, fraction),
+        "k_values": by_component(found.k_values, RATIO),
+        "activity_coefficients": by_component(found.gamma, RATIO),
+    }
+    if len(ids) == 2:
+        answer["relative_volatility"] = quantity(found.k_values[..., 0] / found.k_values[..., 1], RATIO)
+    return {**answer, "model": "ideal" if model == "ideal" else "nrtl", **provenance(found, inputs.units)}
+
+
+def bubble_point(inputs: Inputs) -> dict[str, Any]:
+    return _answer(inputs, dew=False)
+
+
+def dew_point(inputs: Inputs) -> dict[str, Any]:
+    return _answer(inputs, dew=True)
+
+
+_COMMON = (
+    "Give `components` and their `fractions`, and either a pressure (as /v1/boiling-point takes it: absolute, "
+    "elevation, barometer or gauge reading) or a `temperature`. Modified Raoult's law with an ideal vapor: a "
+    "low-pressure method, warned above 0.5 MPa and refused above 1 MPa; refused where a component is above its "
+    "critical temperature or where a pair's parameters predict two liquid phases. `k_values` are y/x; "
+    "`relative_volatility` is K1/K2 for two components."
+)
+
+for _operation in (
+    ComputingPath(
+        path="/v1/bubble-point",
+        name="BubblePoint",
+        summary="Where a liquid mixture starts to boil",
+        description="The bubble point of a liquid of the given composition (or, at a temperature, its bubble "
+        "pressure) and the composition of the first vapor. " + _COMMON,
+        inputs={**PRESSURE_INPUTS, "temperature": TEMPERATURE},
+        options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
+        row_options=("fractions",),
+        dimensions=("pressure", "temperature", "length"),
+        response=answer_schemas.BubblePointAnswer,
+        compute=bubble_point,
+        example={"components": "ethanol,water", "fractions": "0.1,0.9", "elevation": 1420.0},
+    ),
+    ComputingPath(
+        path="/v1/dew-point",
+        name="DewPoint",
+        summary="Where a vapor mixture starts to condense",
+        description="The dew point of a vapor of the given composition (or, at a temperature, its dew pressure) "
+        "and the composition of the first liquid. " + _COMMON,
+        inputs={**PRESSURE_INPUTS, "temperature": TEMPERATURE},
+        options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
+        row_options=("fractions",),
+        dimensions=("pressure", "temperature", "length"),
+        response=answer_schemas.DewPointAnswer,
+        compute=dew_point,
+        example={"components": "ethanol,water", "fractions": "0.4,0.6", "elevation": 1420.0},
+    ),
+):
+    _operation.register(blueprint)
+
+
+@blueprint.get("/v1/pairs")
+def list_pairs() -> Response:
+    found = sorted(pairs().values(), key=lambda p: p.components)
+    names = catalog().entries
+    return cacheable(
+        {
+            "count": len(found),
+            "pairs": [
+                {
+                    "components": list(p.components),
+                    "names": [names[c].name for c in p.components],
+                    "model": "nrtl",
+                    "parameters": {"b12": p.b_ij, "b21": p.b_ji, "alpha": p.alpha},
+                    "temperature_min": quantity(p.t_min, UNITS["K"]),
+                    "temperature_max": quantity(p.t_max, UNITS["K"]),
+                    "source": p.source,
+                }
+                for p in found
+            ],
+        }
+    )
+
+
+document_get(
+    "/v1/pairs",
+    "listPairs",
+    "The built-in binary interaction parameters, with their sources and temperature ranges",
+    {"200": json_answer(answer_schemas.PairList), "304": NOT_MODIFIED, **problem_responses((400, *GUARDED))},
+    [],
+)

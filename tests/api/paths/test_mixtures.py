@@ -1,0 +1,104 @@
+"""/v1/bubble-point, /v1/dew-point and /v1/pairs through the client, which checks every answer against the
+OpenAPI document (source beside each check)."""
+
+from __future__ import annotations
+
+import pytest
+
+from tests.api.test_problems import problem
+from tests.conftest import csv_answer
+
+ETHANOL_WATER = "/v1/bubble-point?components=ethanol,water"
+
+
+def test_ethanol_water_bubble_point_at_one_atmosphere(client) -> None:
+    # Ethanol and water at 101.325 kPa, x = 0.097: about 86.7 degC with y = 0.438 (the issue's published point,
+    # the classic data of Perry's Chemical Engineers' Handbook, Table 13-1; recalled from memory).
+    body = client.get(f"{ETHANOL_WATER}&fractions=0.097,0.903&pressure=101.325").get_json()
+    assert body["bubble_point"]["value"] == pytest.approx(86.7, abs=0.5)
+    assert body["vapor_composition"]["ethanol"]["value"] == pytest.approx(0.438, abs=0.02)
+    k = body["k_values"]
+    assert body["relative_volatility"]["value"] == pytest.approx(k["ethanol"]["value"] / k["water"]["value"])
+    assert body["model"] == "nrtl" and "Renon and Prausnitz" in body["method"] and "DECHEMA" in body["source"]
+
+
+def test_dew_point_of_that_vapor_is_that_bubble_point(client) -> None:
+    # The dew point of the bubble point's vapor is the bubble temperature, and its first liquid the liquid.
+    bubble = client.get(f"{ETHANOL_WATER}&fractions=0.3,0.7&elevation=1420").get_json()
+    y = bubble["vapor_composition"]
+    dew = client.get(
+        f"/v1/dew-point?components=ethanol,water&fractions={y['ethanol']['value']!r},{y['water']['value']!r}"
+        "&elevation=1420"
+    ).get_json()
+    assert dew["dew_point"]["value"] == pytest.approx(bubble["bubble_point"]["value"], abs=1e-6)
+    assert dew["liquid_composition"]["ethanol"]["value"] == pytest.approx(0.3, abs=1e-6)
+
+
+def test_at_a_temperature_the_answer_is_a_pressure(client) -> None:
+    body = client.get(f"{ETHANOL_WATER}&fractions=0.5,0.5&temperature=78").get_json()
+    assert set(body) >= {"temperature", "bubble_pressure"} and "bubble_point" not in body
+
+
+def test_mass_basis_in_and_out(client) -> None:
+    # 50 wt% ethanol is x = 0.2811 (molar masses 46.07 and 18.02 g/mol); the same liquid boils alike.
+    mass = client.get(f"{ETHANOL_WATER}&fractions=0.5,0.5&basis=mass&pressure=101.325").get_json()
+    mole = client.get(f"{ETHANOL_WATER}&fractions=0.28106,0.71894&pressure=101.325").get_json()
+    assert mass["bubble_point"]["value"] == pytest.approx(mole["bubble_point"]["value"], abs=0.01)
+    assert mass["vapor_composition"]["ethanol"]["unit"] == "mass fraction"
+
+
+def test_compositions_broadcast_against_pressures(client) -> None:
+    body = {"components": ["ethanol", "water"], "fractions": [[0.1, 0.9], [0.5, 0.5]], "pressure": [101.325, 50]}
+    answer = client.post("/v1/bubble-point", json=body).get_json()
+    assert len(answer["bubble_point"]["value"]) == 2
+    one = client.post("/v1/bubble-point", json={**body, "fractions": [0.1, 0.9]}).get_json()
+    assert one["bubble_point"]["value"][0] == answer["bubble_point"]["value"][0]
+    problem(client.post("/v1/bubble-point", json={**body, "pressure": [101.325, 50, 20]}), 400)
+
+
+def test_csv_answer_has_a_column_per_component(client) -> None:
+    r = client.post(
+        "/v1/bubble-point?format=csv",
+        json={"components": "ethanol,water", "fractions": [[0.1, 0.9], [0.5, 0.5]], "pressure": 101.325},
+    )
+    notes, rows = csv_answer(r.get_data(as_text=True))
+    assert "components: ethanol, water" in notes
+    assert len(rows) == 2 and "vapor_composition.ethanol [mole fraction]" in rows[0]
+
+
+@pytest.mark.parametrize(
+    ("query", "status", "field"),
+    [
+        ("components=ethanol,water&fractions=0.5,0.6&pressure=100", 400, "fractions"),
+        ("components=ethanol,water&fractions=0.5,0.3,0.2&pressure=100", 400, "fractions"),
+        ("components=ethanol,water&fractions=-0.5,1.5&pressure=100", 400, "fractions"),
+        ("components=ethanol,water&fractions=half,half&pressure=100", 400, "fractions"),
+        ("components=ethanol,ethanol&fractions=0.5,0.5&pressure=100", 400, "components"),
+        ("components=ethanol&fractions=1&pressure=100", 400, "components"),
+        ("components=ethanol,unobtainium&fractions=0.5,0.5&pressure=100", 404, "fluid"),
+        ("components=ethanol,water&fractions=0.5,0.5", 400, "temperature"),
+        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&temperature=80", 400, "temperature"),
+        ("fractions=0.5,0.5&pressure=100", 400, "components"),
+        ("components=ethanol,ammonia&fractions=0.5,0.5&pressure=100", 422, "components"),
+        ("components=water,1-butanol&fractions=0.5,0.5&pressure=100", 422, "pressure"),
+        ("components=benzene,toluene&fractions=0.5,0.5&pressure=1200", 422, "pressure"),
+        ("components=methanol,water&fractions=0.5,0.5&temperature=250", 422, "temperature"),
+        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=unifac", 400, "model"),
+    ],
+)
+def test_refusals(client, query: str, status: int, field: str) -> None:
+    body = problem(client.get(f"/v1/bubble-point?{query}"), status)
+    assert field in body["errors"], body
+
+
+@pytest.mark.parametrize("fractions", [[], [[0.5, 0.5], [1.0]], [[[0.5, 0.5]]], ["0.5", "0.5"]])
+def test_malformed_fractions_in_a_body(client, fractions: list) -> None:
+    body = {"components": ["ethanol", "water"], "fractions": fractions, "pressure": 100}
+    problem(client.post("/v1/bubble-point", json=body), 400)
+
+
+def test_pairs_are_listed_with_their_sources(client) -> None:
+    body = client.get("/v1/pairs").get_json()
+    assert body["count"] == len(body["pairs"]) == 101
+    found = next(p for p in body["pairs"] if p["components"] == ["ethanol", "water"])
+    assert found["parameters"]["alpha"] == 0.2937 and "DECHEMA" in found["source"]
