@@ -55,13 +55,17 @@ bench-http: $(VENV)/.installed-bench
 bench-arrays: $(VENV)/.installed-bench
 	$(BIN)/python bench/arrays.py
 
-.PHONY: bench-devices bench-compare bench-solutions
+.PHONY: bench-devices bench-compare bench-solutions bench-mixtures
 
 bench-devices: $(VENV)/.installed-bench
 	$(BIN)/python bench/devices.py
 
 bench-solutions: $(VENV)/.installed-bench
 	$(BIN)/python bench/solutions.py
+
+# bench-mixtures compares with thermo, a test-only dependency: it needs `make test`'s installs too.
+bench-mixtures: $(VENV)/.installed-bench $(VENV)/.installed-test
+	$(BIN)/python bench/mixtures.py
 
 # The HTTP and array benchmarks against two committed revisions, each from a detached worktree.
 BASE ?= eb6c1ea

@@ -68,10 +68,15 @@ def _repeated_key(raw: bytes, body: dict[str, Any]) -> str | None:
 
 
 def _key_count(value: Any) -> int:
-    """Keys in every object of ``value``; an array of numbers is passed over without a look at each."""
+    """Keys in every object of ``value``; an array of numbers, or of arrays of numbers, is passed over by its first
+    element. Where that misses keys further in, the count falls short of the colons, and the body is read once
+    more, key by key: a shortcut can only send a body to the exact reading, never let a repeated key through."""
     if isinstance(value, dict):
         return len(value) + sum(_key_count(v) for v in value.values())
     if isinstance(value, list) and value and isinstance(value[0], dict | list):
+        first = value[0]
+        if isinstance(first, list) and not (first and isinstance(first[0], dict | list)):
+            return 0
         return sum(_key_count(v) for v in value)
     return 0
 

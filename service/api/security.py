@@ -32,7 +32,8 @@ def json_depth_exceeds(body: bytes, limit: int) -> bool:
     """True when the JSON text ``body`` nests arrays and objects deeper than ``limit``.
 
     Brackets inside strings do not count. Bodies with fewer brackets than the limit pass at
-    once; others are scanned with numpy, without recursion, in a few passes over the bytes.
+    once; others are scanned with numpy, without recursion: one pass over the bytes finds the
+    brackets and quotes, and the rest works on those alone (a tenth of a body of numbers).
 
     >>> json_depth_exceeds(b'{"a": [[1], "[[[["]}', 3), json_depth_exceeds(b"[[[[1]]]]", 3)
     (False, True)
@@ -40,10 +41,11 @@ def json_depth_exceeds(body: bytes, limit: int) -> bool:
     if body.count(b"[") + body.count(b"{") <= limit:
         return False
     text = np.frombuffer(body.replace(b"\\\\", b"").replace(b'\\"', b""), dtype=np.uint8)
-    in_string = np.cumsum(text == 0x22) % 2 == 1
-    step = np.isin(text, (0x5B, 0x7B)).astype(np.int64) - np.isin(text, (0x5D, 0x7D))
-    step[in_string] = 0
-    return bool(np.cumsum(step).max() > limit)
+    opens, closes = (text == 0x5B) | (text == 0x7B), (text == 0x5D) | (text == 0x7D)
+    marks = text[np.flatnonzero(opens | closes | (text == 0x22))]
+    outside = ~np.logical_xor.accumulate(marks == 0x22)  # an even number of quotes before: not in a string
+    step = ((marks == 0x5B) | (marks == 0x7B)).view(np.int8) - ((marks == 0x5D) | (marks == 0x7D)).view(np.int8)
+    return bool(np.cumsum(step * outside, dtype=np.int32).max(initial=0) > limit)
 
 
 def read_body(seconds: float) -> bytes:

@@ -92,12 +92,17 @@ class SolutionLine:
         before = np.clip(pure, low, high)
         now = substituted(before)
         gap_before = now - before
+        active = np.ones(np.shape(now), dtype=bool)
         for _ in range(_MAX_ITERATIONS):
             gap = substituted(now) - now
             turn = gap - gap_before
             step = np.divide(gap * (now - before), turn, out=np.array(gap, dtype=float), where=turn != 0.0)
-            before, gap_before, now = now, gap, np.clip(now - step, low, high)
-            if not np.any(np.abs(now - before) > _TOLERANCE):
+            moved = np.clip(now - step, low, high)
+            # A point stops at its own convergence, so that its answer is the same alone as in an array.
+            before, gap_before = np.where(active, now, before), np.where(active, gap, gap_before)
+            active &= np.abs(moved - now) > _TOLERANCE
+            now = np.where(active, moved, now)
+            if not active.any():
                 break
         return np.where(self.mass_fraction == 0.0, pure, now)
 
@@ -122,10 +127,12 @@ class ShiftedLine(SolutionLine):
         converges in a few steps of the shift alone (its slope is a few thousandths)."""
         pure = water.saturation_temperature(pressure)
         t = np.clip(pure, low, high)
+        active = np.ones(np.shape(t), dtype=bool)
         for _ in range(_MAX_ITERATIONS):
             moved = np.clip(pure + self.shift(t), low, high)
-            change, t = moved - t, moved
-            if not np.any(np.abs(change) > _TOLERANCE):
+            active &= np.abs(moved - t) > _TOLERANCE  # each point stops at its own convergence
+            t = np.where(active, moved, t)
+            if not active.any():
                 break
         return np.where(self.mass_fraction == 0.0, pure, t)
 

@@ -23,6 +23,13 @@ def test_a_key_given_twice_is_refused_not_answered_with_the_last(client) -> None
     assert tagged.status_code == 200 and tagged.get_json()["tag"] == "TI-101: drum"
 
 
+def test_a_key_given_twice_deep_in_rows_of_numbers_is_refused(client) -> None:
+    # Rows of numbers are counted by their first row only; a repeated key further in must still be found.
+    text = '{"components": ["ethanol", "water"], "fractions": [[0.5, 0.5], [{"a": 1, "a": 2}]], "pressure": 100}'
+    body = problem(post_json(client, text, "/v1/bubble-point"), 400)
+    assert "a" in body["errors"], body
+
+
 @pytest.mark.parametrize("text", ["", "  \n", BOM.decode()])
 def test_an_empty_body_says_it_is_empty(client, text: str) -> None:
     assert "is empty" in problem(post_json(client, text), 400)["detail"]

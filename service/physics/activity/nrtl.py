@@ -33,6 +33,8 @@ class Nrtl:
         [1.693, 0.0]
         """
         x = np.asarray(x, dtype=float)
+        if x.shape[-1] == 2:
+            return self._binary(x, np.asarray(temperature, dtype=float))
         t = np.asarray(temperature, dtype=float)[..., None, None]
         tau = self.a + self.b / t  # (..., n, n)
         g = np.exp(-self.alpha * tau)
@@ -42,3 +44,16 @@ class Nrtl:
         weight = x[..., None, :] * g / xg[..., None, :]  # x_j G_ij / sum_k x_k G_kj
         second = np.sum(weight * (tau - first[..., None, :]), axis=-1)
         return first + second
+
+    def _binary(self, x: NDArray[np.float64], temperature: NDArray[np.float64]) -> NDArray[np.float64]:
+        """The same equation written out for two components (Renon and Prausnitz 1968, eqs. for a binary):
+        ln gamma_1 = x2**2 [tau21 (G21/(x1 + x2 G21))**2 + tau12 G12/(x2 + x1 G12)**2], and 1 and 2 swapped.
+        Arrays of one number per point instead of n x n per point: about six times as fast (bench/mixtures.py)."""
+        x1, x2 = x[..., 0], x[..., 1]
+        tau12 = self.a[0, 1] + self.b[0, 1] / temperature
+        tau21 = self.a[1, 0] + self.b[1, 0] / temperature
+        g12, g21 = np.exp(-self.alpha[0, 1] * tau12), np.exp(-self.alpha[1, 0] * tau21)
+        d1, d2 = x1 + x2 * g21, x2 + x1 * g12  # sum_k x_k G_k1 and sum_k x_k G_k2
+        first = np.square(x2) * (tau21 * np.square(g21 / d1) + tau12 * g12 / np.square(d2))
+        second = np.square(x1) * (tau12 * np.square(g12 / d2) + tau21 * g21 / np.square(d1))
+        return np.stack([first, second], axis=-1)

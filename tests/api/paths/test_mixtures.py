@@ -102,3 +102,22 @@ def test_pairs_are_listed_with_their_sources(client) -> None:
     assert body["count"] == len(body["pairs"]) == 101
     found = next(p for p in body["pairs"] if p["components"] == ["ethanol", "water"])
     assert found["parameters"]["alpha"] == 0.2937 and "DECHEMA" in found["source"]
+
+
+@pytest.mark.parametrize(("path", "key"), [("bubble-point", "bubble_point"), ("dew-point", "dew_point")])
+def test_an_array_answers_each_point_as_a_single_request_does(client, path: str, key: str) -> None:
+    # Each point's solver stops at its own convergence: the same floats alone and in an array (the design's rule).
+    points = [(0.1, 101.325), (0.5, 50.0), (0.9, 20.0)]
+    body = {
+        "components": "ethanol,water",
+        "fractions": [[x, 1 - x] for x, _ in points],
+        "pressure": [p for _, p in points],
+    }
+    array = client.post(f"/v1/{path}", json=body).get_json()[key]["value"]
+    singles = [
+        client.get(f"/v1/{path}?components=ethanol,water&fractions={x!r},{1 - x!r}&pressure={p}").get_json()[key][
+            "value"
+        ]
+        for x, p in points
+    ]
+    assert array == singles

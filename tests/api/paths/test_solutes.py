@@ -177,3 +177,20 @@ def test_npsh_of_caustic_uses_its_density_unless_given_one(client) -> None:
     assert "Olsson-Jernqvist-Aly density equation" in found["method"]
     given = client.get(query + "&liquid_density=1530").get_json()
     assert given["liquid_density"] == {"value": 1530, "unit": "kg/m3"}
+
+
+@pytest.mark.parametrize(
+    ("solute", "concentrations"),
+    [("sodium-chloride", [5, 25]), ("lithium-bromide", [5, 50]), ("sea-salt", [1, 10]), ("sucrose", [5, 60])],
+)
+def test_an_array_answers_each_point_as_a_single_request_does(client, solute: str, concentrations: list) -> None:
+    # Each point's solver stops at its own convergence: the same floats alone and in an array (the design's rule).
+    pressures = [20, 101.325]
+    array = client.post(
+        "/v1/boiling-point", json={"solute": solute, "concentration": concentrations, "pressure": pressures}
+    )
+    singles = [
+        client.get(f"/v1/boiling-point?solute={solute}&concentration={c}&pressure={p}").get_json()["boiling_point"]
+        for c, p in zip(concentrations, pressures, strict=True)
+    ]
+    assert array.get_json()["boiling_point"]["value"] == [s["value"] for s in singles]

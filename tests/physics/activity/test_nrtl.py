@@ -42,3 +42,13 @@ def test_no_interaction_is_an_ideal_solution() -> None:
 def test_a_pure_component_has_gamma_one() -> None:
     # At x_i = 1 both sums vanish for component i: ln gamma_i = 0 exactly (Renon and Prausnitz 1968, eq. form).
     assert Nrtl(A, B, ALPHA).log_gamma([1.0, 0.0, 0.0], 340.0)[0] == 0.0
+
+
+def test_two_components_written_out_equal_the_general_form() -> None:
+    # The binary form (Renon and Prausnitz 1968) against the n-component one with a third component absent.
+    model = Nrtl(A[:2, :2], B[:2, :2], ALPHA[:2, :2])
+    x = np.array([[0.2, 0.8], [0.7, 0.3], [1.0, 0.0]])
+    t = np.array([300.0, 340.0, 370.0])
+    padded = np.concatenate([x, np.zeros((3, 1))], axis=-1)
+    general = Nrtl(A * [[1, 1, 0], [1, 1, 0], [0, 0, 0]], B * [[1, 1, 0], [1, 1, 0], [0, 0, 0]], ALPHA)
+    np.testing.assert_allclose(model.log_gamma(x, t), general.log_gamma(padded, t)[:, :2], rtol=1e-13, atol=1e-15)
