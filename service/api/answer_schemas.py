@@ -315,55 +315,6 @@ class SoluteList(Schema):
     solutes = fields.List(fields.Nested(SoluteSummary), required=True)
 
 
-def _by_component(description: str) -> fields.Dict:
-    return fields.Dict(
-        keys=fields.String(), values=fields.Nested(Fraction), required=True, metadata={"description": description}
-    )
-
-
-class _PhasePoint(Provenance):
-    components = fields.List(fields.String(), required=True, metadata={"description": "Catalog ids, in order."})
-    gauge_pressure = fields.Nested(Pressure, metadata={"description": "The gauge reading sent."})
-    pressure = fields.Nested(Pressure, metadata={"description": "The absolute pressure, where one was given."})
-    temperature = fields.Nested(Temperature, metadata={"description": "The temperature, where one was given."})
-    k_values = _by_component("K = y/x of each component.")
-    activity_coefficients = _by_component("The liquid's activity coefficient of each component.")
-    relative_volatility = fields.Nested(Fraction, metadata={"description": "K1/K2, for two components."})
-    model = fields.String(required=True, metadata={"description": "nrtl or ideal."})
-
-
-class BubblePointAnswer(_PhasePoint):
-    bubble_point = fields.Nested(Temperature, metadata={"description": "Where the liquid starts to boil."})
-    bubble_pressure = fields.Nested(Pressure, metadata={"description": "Where the liquid starts to boil."})
-    vapor_composition = _by_component("The first vapor, in the request's basis.")
-
-
-class DewPointAnswer(_PhasePoint):
-    dew_point = fields.Nested(Temperature, metadata={"description": "Where the vapor starts to condense."})
-    dew_pressure = fields.Nested(Pressure, metadata={"description": "Where the vapor starts to condense."})
-    liquid_composition = _by_component("The first liquid, in the request's basis.")
-
-
-class PairEntry(Schema):
-    components = fields.List(fields.String(), required=True)
-    names = fields.List(fields.String(), required=True)
-    model = fields.String(required=True)
-    parameters = fields.Dict(
-        keys=fields.String(),
-        values=fields.Float(),
-        required=True,
-        metadata={"description": "NRTL: tau_12 = b12/T and tau_21 = b21/T with b in K, and alpha."},
-    )
-    temperature_min = fields.Nested(Temperature, required=True)
-    temperature_max = fields.Nested(Temperature, required=True)
-    source = fields.String(required=True)
-
-
-class PairList(Schema):
-    count = fields.Integer(required=True)
-    pairs = fields.List(fields.Nested(PairEntry), required=True)
-
-
 class Problem(Schema):
     """RFC 9457 problem details."""
 

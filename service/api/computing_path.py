@@ -142,6 +142,8 @@ class ComputingPath:
     row_options: tuple[str, ...] = ()
     """Options that may give one row per point (a list of lists in a POST body, loaded as a 2-D array): their
     rows broadcast with the input arrays as one more array would."""
+    one_point: bool = False
+    """Whether the path answers one point per request (its POST then takes single values only)."""
     errors: tuple[int, ...] = (400, 404, 422)
     """Problem statuses of the GET; the POST adds 408, 413 and 415."""
     fields: dict[str, dict[str, fields.Field]] = field(init=False, repr=False)
@@ -231,6 +233,9 @@ class ComputingPath:
             if isinstance(rows, np.ndarray) and rows.ndim == 2:
                 shapes[name] = rows.shape[:1]
         shape = _broadcast_shape(shapes)
+        if shape and self.one_point:
+            first = next(name for name, s in shapes.items() if s)
+            raise invalid(first, f"{self.path} answers one point per request: give single values")
         tag = loaded.get("tag")
         if isinstance(tag, list) and (len(tag),) != (shape or (1,)):
             raise invalid(

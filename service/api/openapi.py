@@ -143,14 +143,14 @@ _CSV_BODY = (
 def _csv_example(operation: ComputingPath, body: dict[str, Any]) -> str:
     """The array example as a CSV body: every input quantity a column, single values repeated."""
     columns = {k: v for k, v in body.items() if k in operation.inputs}
-    length = max(len(v) for v in columns.values() if isinstance(v, list))
+    length = max((len(v) for v in columns.values() if isinstance(v, list)), default=1)
     cells = [v if isinstance(v, list) else [v] * length for v in columns.values()]
     return "\n".join([",".join(columns), *(",".join(map(repr, row)) for row in zip(*cells, strict=True))]) + "\n"
 
 
 def _computing_paths(spec: APISpec, operation: ComputingPath) -> None:
     get_answer = shown(_rounded(operation.answer(operation.parse(operation.example, "query"))), ())
-    array_body = _array_example(operation)
+    array_body = dict(operation.example) if operation.one_point else _array_example(operation)
     post_inputs = operation.parse(array_body, "body")
     post_answer = _rounded(operation.answer(post_inputs))
     text = {"type": "string"}

@@ -112,16 +112,21 @@ def _is_quantity(value: Any) -> bool:
 
 
 def _is_group(value: Any) -> bool:
-    """A dict of quantities by name (one per component of a mixture, say)."""
-    return isinstance(value, dict) and bool(value) and all(_is_quantity(v) for v in value.values())
+    """A dict of quantities, or of such dicts, by name (one per component of a mixture, say)."""
+    return (
+        isinstance(value, dict)
+        and not _is_quantity(value)
+        and bool(value)
+        and all(_is_quantity(v) or _is_group(v) for v in value.values())
+    )
 
 
 def _flat(body: dict[str, Any]) -> dict[str, Any]:
-    """The answer with each group's quantities as fields of their own, ``group.name``."""
+    """The answer with each group's quantities as fields of their own, ``group.name`` (``group.inner.name``)."""
     out: dict[str, Any] = {}
     for name, value in body.items():
         if _is_group(value):
-            out |= {f"{name}.{key}": quantity for key, quantity in value.items()}
+            out |= {f"{name}.{key}": inner for key, inner in _flat(value).items()}
         else:
             out[name] = value
     return out
@@ -138,7 +143,7 @@ def as_text(body: dict[str, Any]) -> str:
             lines.extend(f"warning: {w}" for w in value)
         elif isinstance(value, list):
             lines.append(f"{name}: {' '.join(map(str, value))}")
-        else:
+        elif value is not None:
             lines.append(f"{name}: {value}")
     return "\n".join(lines) + "\n"
 

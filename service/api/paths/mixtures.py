@@ -8,7 +8,7 @@ import numpy as np
 from flask import Blueprint, Response, current_app
 from marshmallow import ValidationError, fields, validate
 
-from service.api import answer_schemas
+from service.api import mixture_schemas
 from service.api.answer_cache import cacheable
 from service.api.catalog_lookup import catalog, resolve_catalog_fluid
 from service.api.computing_path import ComputingPath, Input, Inputs
@@ -18,12 +18,14 @@ from service.api.pressure_inputs import PRESSURE_INPUTS, pressure_fields, readin
 from service.api.problems import invalid
 from service.api.quantity_fields import RATIO, quantity
 from service.api.rendering import provenance
-from service.fluids.mixture import Basis, Model, mixture, phase_point
+from service.fluids.azeotrope import azeotrope
+from service.fluids.mixture import Basis, Mixture, mixture, phase_point
 from service.fluids.pairs import NrtlPair
 from service.physics.units import UNITS, Unit
 
 blueprint = Blueprint("mixtures", __name__)
 _MOST_COMPONENTS = 10
+_MOLE = Unit("mole fraction", "ratio", 1.0)  # type: ignore[arg-type]
 
 
 class ComponentsField(fields.Field):
@@ -112,12 +114,9 @@ def pairs() -> dict[frozenset[str], NrtlPair]:
 
 
 def _answer(inputs: Inputs, dew: bool) -> dict[str, Any]:
-    for name in ("components", "fractions"):
-        if inputs.options.get(name) is None:
-            raise invalid(name, "is required")
-    components = [resolve_catalog_fluid(name) for name in inputs.options["components"]]
-    model: Model = inputs.options["model"]
-    mix = mixture(components, pairs(), model)
+    mix = _mixture(inputs)
+    if inputs.options.get("fractions") is None:
+        raise invalid("fractions", "is required")
     fractions = inputs.options["fractions"]
     basis: Basis = inputs.options["basis"]
     rows = np.broadcast_to(fractions, (*inputs.shape, fractions.shape[-1]))
@@ -144,7 +143,40 @@ def _answer(inputs: Inputs, dew: bool) -> dict[str, Any]:
     }
     if len(ids) == 2:
         answer["relative_volatility"] = quantity(found.k_values[..., 0] / found.k_values[..., 1], RATIO)
-    return {**answer, "model": "ideal" if model == "ideal" else "nrtl", **provenance(found, inputs.units)}
+    return {**answer, "model": _model_name(inputs), **provenance(found, inputs.units)}
+
+
+def _model_name(inputs: Inputs) -> str:
+    return "ideal" if inputs.options["model"] == "ideal" else "nrtl"
+
+
+def _mixture(inputs: Inputs) -> Mixture:
+    """The request's components under its model; ``components`` is required."""
+    if inputs.options.get("components") is None:
+        raise invalid("components", "is required")
+    return mixture([resolve_catalog_fluid(n) for n in inputs.options["components"]], pairs(), inputs.options["model"])
+
+
+def azeotrope_of(inputs: Inputs) -> dict[str, Any]:
+    mix = _mixture(inputs)
+    if len(mix.components) != 2:
+        raise invalid("components", "an azeotrope is sought for two components")
+    found = azeotrope(mix, readings(inputs))
+    ids = [fluid.id for fluid in mix.components]
+    point = None
+    if found.composition is not None:
+        point = {
+            "temperature": quantity(found.temperature, inputs.units["temperature"]),
+            "composition": {name: quantity(found.composition[i], _MOLE) for i, name in enumerate(ids)},
+        }
+    return {
+        "components": ids,
+        **pressure_fields(inputs, found.local, inputs.units["pressure"]),
+        "azeotrope": point,
+        "reason": found.reason,
+        "model": _model_name(inputs),
+        **provenance(found, inputs.units),
+    }
 
 
 def bubble_point(inputs: Inputs) -> dict[str, Any]:
@@ -174,7 +206,7 @@ for _operation in (
         options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
         row_options=("fractions",),
         dimensions=("pressure", "temperature", "length"),
-        response=answer_schemas.BubblePointAnswer,
+        response=mixture_schemas.BubblePointAnswer,
         compute=bubble_point,
         example={"components": "ethanol,water", "fractions": "0.1,0.9", "elevation": 1420.0},
     ),
@@ -188,9 +220,24 @@ for _operation in (
         options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
         row_options=("fractions",),
         dimensions=("pressure", "temperature", "length"),
-        response=answer_schemas.DewPointAnswer,
+        response=mixture_schemas.DewPointAnswer,
         compute=dew_point,
         example={"components": "ethanol,water", "fractions": "0.4,0.6", "elevation": 1420.0},
+    ),
+    ComputingPath(
+        path="/v1/azeotrope",
+        name="Azeotrope",
+        summary="The azeotrope of a binary liquid mixture at a pressure",
+        description="Where the vapor of two `components` has the liquid's composition (their relative volatility "
+        "passes through 1), at one pressure given as /v1/boiling-point takes it: its temperature and composition "
+        "in mole fractions, or null and the reason. The same model and limits as /v1/bubble-point.",
+        inputs=PRESSURE_INPUTS,
+        options={"components": COMPONENTS, "model": MODEL},
+        dimensions=("pressure", "temperature", "length"),
+        response=mixture_schemas.AzeotropeAnswer,
+        one_point=True,
+        compute=azeotrope_of,
+        example={"components": "ethanol,water", "elevation": 1420.0},
     ),
 ):
     _operation.register(blueprint)
@@ -223,6 +270,6 @@ document_get(
     "/v1/pairs",
     "listPairs",
     "The built-in binary interaction parameters, with their sources and temperature ranges",
-    {"200": json_answer(answer_schemas.PairList), "304": NOT_MODIFIED, **problem_responses((400, *GUARDED))},
+    {"200": json_answer(mixture_schemas.PairList), "304": NOT_MODIFIED, **problem_responses((400, *GUARDED))},
     [],
 )

@@ -121,3 +121,32 @@ def test_an_array_answers_each_point_as_a_single_request_does(client, path: str,
         for x, p in points
     ]
     assert array == singles
+
+
+def test_azeotrope_of_ethanol_and_water(client) -> None:
+    # The published point: near 78.15 degC at x = 0.894.
+    body = client.get("/v1/azeotrope?components=ethanol,water&pressure=101.325").get_json()
+    assert body["azeotrope"]["temperature"]["value"] == pytest.approx(78.15, abs=0.5)
+    assert body["azeotrope"]["composition"]["ethanol"]["value"] == pytest.approx(0.894, abs=0.02)
+    assert body["reason"] is None
+
+
+def test_no_azeotrope_is_null_with_a_reason(client) -> None:
+    body = client.get("/v1/azeotrope?components=benzene,toluene&elevation=1420").get_json()
+    assert body["azeotrope"] is None and body["reason"].startswith("none:")
+
+
+@pytest.mark.parametrize(
+    ("query", "field"),
+    [
+        ("components=ethanol,water,methanol&pressure=100", "components"),
+        ("components=ethanol,water", "pressure"),
+    ],
+)
+def test_azeotrope_refusals(client, query: str, field: str) -> None:
+    assert field in problem(client.get(f"/v1/azeotrope?{query}"), 400)["errors"]
+
+
+def test_azeotrope_takes_one_pressure_per_request(client) -> None:
+    r = client.post("/v1/azeotrope", json={"components": ["ethanol", "water"], "pressure": [100, 50]})
+    assert "pressure" in problem(r, 400)["errors"]

@@ -1,0 +1,43 @@
+"""Azeotropes of binaries at 1 atm against published data (source beside each check)."""
+
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+from service.fluids.azeotrope import azeotrope
+from service.fluids.catalog import Catalog
+from service.fluids.fluid import Fluid
+from service.fluids.mixture import mixture
+from service.fluids.pairs import load_nrtl_pairs
+from service.fluids.site_pressure import PressureReadings
+
+ONE_ATMOSPHERE = PressureReadings(pressure=np.float64(101_325.0))
+
+
+@pytest.mark.parametrize(
+    ("first", "second", "boils", "x1"),
+    [
+        # The issue's published point: near 78.15 degC at x = 0.894 (95.6 wt% ethanol).
+        ("ethanol", "water", 78.15, 0.894),
+        # Maximum-boiling: CRC Handbook, azeotropic data, about 64.5 degC at 34 mol% acetone (recalled).
+        ("acetone", "chloroform", 64.5, 0.34),
+        # CRC Handbook, azeotropic data: about 67.9 degC at 44.8 mol% ethanol (recalled).
+        ("ethanol", "benzene", 67.9, 0.448),
+    ],
+)
+def test_published_azeotropes(catalog: Catalog[Fluid], first: str, second: str, boils: float, x1: float) -> None:
+    mix = mixture([catalog.get(first), catalog.get(second)], load_nrtl_pairs(catalog), "auto")
+    found = azeotrope(mix, ONE_ATMOSPHERE)
+    assert found.temperature - 273.15 == pytest.approx(boils, abs=0.5)
+    assert found.composition[0] == pytest.approx(x1, abs=0.02)
+    # At the azeotrope the vapor has the liquid's composition.
+    vapor = mix.bubble_point(np.array([101_325.0]), found.composition[None, :]).other[0]
+    np.testing.assert_allclose(vapor, found.composition, atol=1e-9)
+
+
+def test_none_says_why(catalog: Catalog[Fluid]) -> None:
+    # Benzene and toluene form no azeotrope: benzene is the lighter throughout (a fact of the trade, no source).
+    mix = mixture([catalog.get("benzene"), catalog.get("toluene")], load_nrtl_pairs(catalog), "auto")
+    found = azeotrope(mix, ONE_ATMOSPHERE)
+    assert found.temperature is None and "Benzene is the more volatile" in found.reason
