@@ -44,6 +44,7 @@ def fluid_from_entry(entry: Mapping[str, Any]) -> Fluid:
         constants_source=entry["constants_source"],
         lower_limit_note=entry["lower_limit_note"],
         notes=tuple(entry["notes"]),
+        vapor_associates=entry["vapor_associates"],
         liquid_density=None
         if entry["liquid_density"] is None
         else density_from_entry(entry["liquid_density"], entry["molar_mass"]),

@@ -53,6 +53,8 @@ class Fluid:
     """Why the fluid does not boil below its triple point, where that is not sublimation."""
     notes: tuple[str, ...] = ()
     """Cautions that go into the warnings of every answer from this fluid."""
+    vapor_associates: str | None = None
+    """Why its vapor is not an ideal gas (it associates, as carboxylic acids dimerise), where that is so."""
     liquid_density: LiquidDensity | None = None
     tabulated: bool = True
     """Answer saturation temperatures from a table (catalog fluids) or by Newton (a request's own)."""

@@ -221,6 +221,12 @@ def mixture(components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair
         raise Refusal("A component is named twice.", {"components": ["repeated"]}, 400)
     if len(ids) < 2:
         raise Refusal("A mixture has two components or more.", {"components": ["fewer than two"]}, 400)
+    for fluid in components:
+        if fluid.vapor_associates:
+            raise Refusal(
+                f"{fluid.vapor_associates} A bubble or dew point with {fluid.name} is not answered.",
+                {"components": [f"{fluid.id}: its vapor associates"]},
+            )
     if model == "ideal":
         return Mixture(tuple(components), model, ())
     found, missing = [], []

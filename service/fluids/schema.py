@@ -106,6 +106,7 @@ class FluidEntrySchema(Schema):
     constants_source = fields.String(required=True, validate=validate.Length(min=10))
     lower_limit_note = fields.String(load_default=None, validate=validate.Length(min=10))
     notes = fields.List(fields.String(validate=validate.Length(min=10)), load_default=list)
+    vapor_associates = fields.String(load_default=None, validate=validate.Length(min=10))
     vapor_pressure = FormTable(VAPOR_PRESSURE_FORMS, unknown=INCLUDE, required=True)
     liquid_density = FormTable(DENSITY_FORMS, unknown=RAISE, load_default=None)
 

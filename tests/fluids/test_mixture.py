@@ -94,3 +94,11 @@ def test_repeated_and_single_components_are_refused(catalog: Catalog[Fluid], pai
         of(catalog, pairs, "ethanol", "ethanol")
     with pytest.raises(Refusal):
         of(catalog, pairs, "ethanol")
+
+
+def test_an_associating_acid_is_refused(catalog: Catalog[Fluid], pairs: Pairs) -> None:
+    # Acetic acid dimerises in the vapor (common practice, no source): the DECHEMA ethanol/acetic acid set exists,
+    # but modified Raoult's law with an ideal vapor does not hold, so the mixture is refused, ideal or not.
+    for model in ("auto", "ideal"):
+        with pytest.raises(Refusal, match="dimerises in the vapor"):
+            of(catalog, pairs, "ethanol", "acetic-acid", model=model)
