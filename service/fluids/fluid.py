@@ -152,6 +152,10 @@ class Fluid:
         """dp/dT along saturation [Pa/K] at ``temperature`` [K]."""
         return self.equation.slope(temperature)
 
+    def saturation_pressure_and_slope(self, temperature: ArrayLike) -> tuple[NDArray[np.float64], NDArray[np.float64]]:
+        """Vapor pressure [Pa] and dp/dT [Pa/K] at ``temperature`` [K], evaluated together."""
+        return self.equation.pressure_and_slope(temperature)
+
     def saturation_temperature(self, pressure: ArrayLike) -> NDArray[np.float64]:
         """Boiling point [K] at absolute ``pressure`` [Pa], within :attr:`temperature_limits`.
 

@@ -81,11 +81,15 @@ class Mixture:
         lows, highs = zip(*(fluid.temperature_limits for fluid in self.components), strict=True)
         return ModifiedRaoult(
             lambda t: np.stack([fluid.saturation_pressure(t) for fluid in self.components], axis=-1),
-            lambda t: np.stack([fluid.saturation_pressure_slope(t) for fluid in self.components], axis=-1),
+            self._with_slopes,
             self.log_gamma,
             max(lows),
             min(highs),
         )
+
+    def _with_slopes(self, temperature: Array) -> tuple[Array, Array]:
+        pairs = [fluid.saturation_pressure_and_slope(temperature) for fluid in self.components]
+        return np.stack([p for p, _ in pairs], axis=-1), np.stack([s for _, s in pairs], axis=-1)
 
     @property
     def citations(self) -> list[tuple[str, str]]:

@@ -25,11 +25,12 @@ _STEP = 1e-3
 
 @dataclass(frozen=True)
 class ModifiedRaoult:
-    """``vapor_pressures(T)`` [Pa] and ``slopes(T)`` [Pa/K] give (N, n) for temperatures (N,); ``log_gamma(x, T)``
-    gives ln gamma (N, n); ``low`` and ``high`` [K] bound every temperature sought."""
+    """``vapor_pressures(T)`` [Pa] gives (N, n) for temperatures (N,), and ``with_slopes(T)`` those and dp/dT
+    [Pa/K] together; ``log_gamma(x, T)`` gives ln gamma (N, n); ``low`` and ``high`` [K] bound every temperature
+    sought."""
 
     vapor_pressures: Callable[[Array], Array]
-    slopes: Callable[[Array], Array]
+    with_slopes: Callable[[Array], tuple[Array, Array]]
     log_gamma: Callable[[Array, Array], Array]
     low: float
     high: float
@@ -62,10 +63,10 @@ class ModifiedRaoult:
         for _ in range(_MAX_ITERATIONS):
             log_gamma = self.log_gamma(x, t)
             drift = (self.log_gamma(x, t + _STEP) - log_gamma) / _STEP
-            pure = self.vapor_pressures(t)
+            pure, slopes = self.with_slopes(t)
             weights = x * np.exp(log_gamma)
             total = (weights * pure).sum(axis=-1)
-            step = np.log(total / pressure) * total / (weights * (self.slopes(t) + pure * drift)).sum(axis=-1)
+            step = np.log(total / pressure) * total / (weights * (slopes + pure * drift)).sum(axis=-1)
             moved = np.clip(t - step, self.low, self.high)
             active &= np.abs(moved - t) > _TOLERANCE  # each point stops at its own convergence (alone = in an array)
             t = np.where(active, moved, t)
@@ -106,10 +107,10 @@ class ModifiedRaoult:
         x = y
         active = np.ones(t.shape, dtype=bool)
         for _ in range(_MAX_ITERATIONS):
-            pure = self.vapor_pressures(t)
+            pure, slopes = self.with_slopes(t)
             shares = y * pressure[:, None] / (gamma * pure)  # x_i before normalising
             total = shares.sum(axis=-1)
-            step = np.log(total) * total / (shares * self.slopes(t) / pure).sum(axis=-1)  # too little vapor: hotter
+            step = np.log(total) * total / (shares * slopes / pure).sum(axis=-1)  # too little vapor: hotter
             moved = np.clip(t + step, self.low, self.high)
             liquid = shares / total[:, None]
             active &= (np.abs(moved - t) > _TOLERANCE) | (np.abs(liquid - x).max(axis=-1) > _TOLERANCE)

@@ -47,6 +47,13 @@ class VaporPressureEquation(ABC):
         """dp/dT along the saturation curve [Pa/K] at ``temperature`` [K]."""
         return in_blocks(self._slope, temperature)
 
+    def pressure_and_slope(self, temperature: ArrayLike) -> tuple[NDArray[np.float64], NDArray[np.float64]]:
+        """Saturation pressure [Pa] and dp/dT [Pa/K] at ``temperature`` [K], from one evaluation of the series
+        (a solver that needs both saves the second)."""
+        ln_p, d_ln_p = self.ln_pressure_and_slope(np.asarray(temperature, dtype=float))
+        pressure = np.exp(ln_p)
+        return pressure, pressure * d_ln_p
+
     def _pressure(self, temperature: NDArray) -> NDArray:
         return np.exp(self.ln_pressure(temperature))
 

@@ -15,13 +15,13 @@ def raoult(model: Nrtl | None) -> ModifiedRaoult:
     def pressures(t: np.ndarray) -> np.ndarray:
         return np.exp(A_ - B_ / t[..., None])
 
-    def slopes(t: np.ndarray) -> np.ndarray:
-        return pressures(t) * B_ / t[..., None] ** 2
+    def with_slopes(t: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+        return pressures(t), pressures(t) * B_ / t[..., None] ** 2
 
     def log_gamma(x: np.ndarray, t: np.ndarray) -> np.ndarray:
         return np.zeros_like(x) if model is None else model.log_gamma(x, t)
 
-    return ModifiedRaoult(pressures, slopes, log_gamma, 200.0, 600.0)
+    return ModifiedRaoult(pressures, with_slopes, log_gamma, 200.0, 600.0)
 
 
 NRTL = Nrtl(np.zeros((2, 2)), np.array([[0.0, 150.0], [300.0, 0.0]]), np.full((2, 2), 0.3) * (1 - np.eye(2)))
