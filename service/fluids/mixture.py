@@ -11,22 +11,25 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
-from functools import cache, cached_property
+from functools import cached_property
 from typing import Literal
 
 import numpy as np
 from numpy.typing import NDArray
 
+from service.fluids import groups
 from service.fluids.cautions import Caution, Shown, Warnings, literal
 from service.fluids.fluid import Fluid
+from service.fluids.groups import GroupTable
 from service.fluids.limits import Refusal, any_of, refuse_outside
 from service.fluids.pairs import NrtlPair
 from service.fluids.questions import Answer
 from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
 from service.physics.activity.nrtl import Nrtl
+from service.physics.activity.unifac import Unifac
 from service.physics.equilibrium import ModifiedRaoult
 
-Model = Literal["auto", "nrtl", "ideal"]
+Model = Literal["auto", "nrtl", "unifac", "ideal"]
 WARN_PRESSURE = 0.5e6
 """Above this [Pa] an ideal vapor departs from real vapors by a few percent: a warning (common practice, no source)."""
 MAX_PRESSURE = 1.0e6
@@ -51,30 +54,31 @@ class Equilibrium:
 
 
 @dataclass(frozen=True)
+class Binary:
+    """Two components of a mixture under its activity model, for the test of two liquid phases; ``fitted``: the
+    NRTL pair's stated range [K], where the model is a fitted pair's."""
+
+    ids: tuple[str, str]
+    model: Nrtl | Unifac
+    scan: tuple[float, float]
+    """The temperatures [K] over which the liquid is tested for splitting."""
+    fitted: NrtlPair | None = None
+
+
+@dataclass(frozen=True)
 class Mixture:
     """Liquid mixtures of ``components`` (catalog fluids, in the request's order) under one activity model."""
 
     components: tuple[Fluid, ...]
-    model: Model
-    pairs: tuple[NrtlPair, ...]
-    """The parameter sets used, in the order of :func:`itertools.combinations` of the components."""
-
-    @cached_property
-    def _nrtl(self) -> Nrtl | None:
-        if self.model == "ideal":
-            return None
-        n = len(self.components)
-        index = {fluid.id: i for i, fluid in enumerate(self.components)}
-        b, alpha = np.zeros((n, n)), np.zeros((n, n))
-        for pair in self.pairs:
-            i, j = (index[c] for c in pair.components)
-            b[i, j], b[j, i] = pair.b_ij, pair.b_ji
-            alpha[i, j] = alpha[j, i] = pair.alpha
-        return Nrtl(np.zeros((n, n)), b, alpha)
+    model: Literal["nrtl", "unifac", "ideal"]
+    activity: Nrtl | Unifac | None
+    binaries: tuple[Binary, ...] = ()
+    notes: tuple[str, ...] = ()
+    """Cautions every answer of this mixture carries (a group prediction where fitted pairs were missing)."""
 
     def log_gamma(self, x: Array, temperature: Array) -> Array:
         """ln gamma (N, n) at mole fractions ``x`` (N, n) and ``temperature`` [K] (N,)."""
-        return np.zeros_like(x) if self._nrtl is None else self._nrtl.log_gamma(x, temperature)
+        return np.zeros_like(x) if self.activity is None else self.activity.log_gamma(x, temperature)
 
     @cached_property
     def equilibrium(self) -> ModifiedRaoult:
@@ -94,10 +98,12 @@ class Mixture:
     @property
     def citations(self) -> list[tuple[str, str]]:
         """(method, source) of the activity model and of each component's vapor-pressure equation."""
-        model = [
-            ("NRTL (Renon and Prausnitz 1968)", "; ".join(f"{'/'.join(p.components)}: {p.source}" for p in self.pairs))
-        ]
-        return [*(model if self.pairs else []), *((f.method, f.source) for f in self.components)]
+        if self.model == "nrtl":
+            sources = "; ".join(f"{'/'.join(b.ids)}: {b.fitted.source}" for b in self.binaries if b.fitted)
+            model = [("NRTL (Renon and Prausnitz 1968)", sources)]
+        else:
+            model = [(groups.METHOD, groups.SOURCE)] if self.model == "unifac" else []
+        return [*model, *((f.method, f.source) for f in self.components)]
 
     def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:
         """Where liquid ``x`` at ``pressure`` [Pa] starts to boil."""
@@ -180,16 +186,20 @@ class Mixture:
                 f"{{limit}}, the critical temperature of {name} (or its equation's end): above it {name} is a gas "
                 "that dissolves, and Raoult's law does not hold",
             )
-        warnings: Warnings = []
-        for pair in self.pairs:
-            names = " and ".join(literal(c) for c in pair.components)
-            split = np.interp(temperature, *_unstable(pair)) > 0.0
+        warnings: Warnings = list(self.notes)
+        for binary in self.binaries:
+            names = " and ".join(literal(c) for c in binary.ids)
+            split = np.interp(temperature, *_unstable(binary)) > 0.0
             if any_of(split):
                 raise Refusal(
                     f"{names} form two liquid phases at this temperature over part of their composition range "
-                    "(the NRTL parameters predict it); a single-liquid bubble or dew point is not answered there.",
+                    f"(the {self.model.upper()} model predicts it); a single-liquid bubble or dew point is not "
+                    "answered there.",
                     {field: ["two liquid phases at this temperature"]},
                 )
+            pair = binary.fitted
+            if pair is None:
+                continue
             outside = (temperature < pair.t_min) | (temperature > pair.t_max)
             if any_of(outside):
                 warnings.append(
@@ -203,23 +213,29 @@ class Mixture:
         return warnings
 
 
-@cache
-def _unstable(pair: NrtlPair) -> tuple[Array, Array]:
-    """Temperatures [K] around the pair's range, and 1 where its liquid is unstable at some composition, else 0:
+_SPLITS: dict[tuple[str, tuple[str, str]], tuple[Array, Array]] = {}
+"""The liquid-split tables by model and pair, computed once each."""
+
+
+def _unstable(binary: Binary) -> tuple[Array, Array]:
+    """Temperatures [K] over the binary's scan, and 1 where its liquid is unstable at some composition, else 0:
     where d2(g_mix/RT)/dx2 < 0, g_mix/RT = sum x ln(x gamma) (the spinodal; at a temperature where a binary has
-    one, it has two liquid phases over a composition range). Computed once per pair."""
-    temperatures = np.arange(pair.t_min - SPLIT_MARGIN, pair.t_max + SPLIT_MARGIN + 0.5, 1.0)
-    model = Nrtl(np.zeros((2, 2)), np.array([[0.0, pair.b_ij], [pair.b_ji, 0.0]]), (1 - np.eye(2)) * pair.alpha)
-    x = np.stack([SPLIT_GRID, 1.0 - SPLIT_GRID], axis=-1)[None, :, :]
-    t = temperatures[:, None]
-    g = (x * (np.log(x) + model.log_gamma(x, t))).sum(-1)
-    curvature = np.diff(g, n=2, axis=-1)
-    return temperatures, np.any(curvature < 0.0, axis=-1).astype(float)
+    one, it has two liquid phases over a composition range)."""
+    key = (type(binary.model).__name__, binary.ids)
+    if key not in _SPLITS:
+        temperatures = np.arange(binary.scan[0], binary.scan[1] + 0.5, 1.0)
+        x = np.stack([SPLIT_GRID, 1.0 - SPLIT_GRID], axis=-1)[None, :, :]
+        g = (x * (np.log(x) + binary.model.log_gamma(x, temperatures[:, None]))).sum(-1)
+        _SPLITS[key] = temperatures, np.any(np.diff(g, n=2, axis=-1) < 0.0, axis=-1).astype(float)
+    return _SPLITS[key]
 
 
-def mixture(components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair], model: Model) -> Mixture:
-    """The mixture of ``components`` under ``model``: ``ideal`` (Raoult's law), or ``nrtl`` / ``auto`` with the
-    built-in pair of every two components; a pair without parameters is refused."""
+def mixture(
+    components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair], table: GroupTable, model: Model
+) -> Mixture:
+    """The mixture of ``components`` under ``model``: ``ideal`` (Raoult's law); ``nrtl`` with the built-in pair of
+    every two components (a missing pair refused); ``unifac``, the group prediction; ``auto``, NRTL where every pair
+    has parameters, else UNIFAC with a caution, else refused: never an ideal solution unasked."""
     ids = [fluid.id for fluid in components]
     if len(set(ids)) != len(ids):
         raise Refusal("A component is named twice.", {"components": ["repeated"]}, 400)
@@ -232,20 +248,52 @@ def mixture(components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair
                 {"components": [f"{fluid.id}: its vapor associates"]},
             )
     if model == "ideal":
-        return Mixture(tuple(components), model, ())
+        return Mixture(tuple(components), "ideal", None)
     found, missing = [], []
     for i, first in enumerate(ids):
         for second in ids[i + 1 :]:
             pair = pairs.get(frozenset((first, second)))
             (found if pair else missing).append(pair or f"{first}/{second}")
-    if missing:
+    if not missing and model != "unifac":
+        return _nrtl_mixture(tuple(components), found)
+    if model == "nrtl":
         raise Refusal(
-            f"No built-in NRTL parameters for {', '.join(missing)} (GET /v1/pairs lists them); a group-contribution "
-            "prediction is not built yet. An ideal solution (model=ideal) can be far off for such a pair: ask for it "
-            "only where Raoult's law is known to hold.",
+            f"No built-in NRTL parameters for {', '.join(missing)} (GET /v1/pairs lists them); model=auto falls back "
+            "to the UNIFAC group prediction.",
             {"components": [f"no parameters for {m}" for m in missing]},
         )
-    return Mixture(tuple(components), model, tuple(found))
+    notes = ()
+    if model == "auto":
+        notes = (
+            f"No fitted NRTL parameters for {', '.join(missing)}: the answer is the UNIFAC group-contribution "
+            "prediction, typically within a few kelvin of measured bubble points, and less sure than a fitted pair.",
+        )
+    unifac = table.model(components)
+    scan = _scan(components)
+    binaries = tuple(
+        Binary((a.id, b.id), table.model([a, b]), scan) for i, a in enumerate(components) for b in components[i + 1 :]
+    )
+    return Mixture(tuple(components), "unifac", unifac, binaries, notes)
+
+
+def _scan(components: Sequence[Fluid]) -> tuple[float, float]:
+    """The temperatures [K] where every component has a liquid by its equation, within 200 to 600 K."""
+    lows, highs = zip(*(fluid.temperature_limits for fluid in components), strict=True)
+    return max(*lows, 200.0), min(*highs, 600.0)
+
+
+def _nrtl_mixture(components: tuple[Fluid, ...], pairs: list[NrtlPair]) -> Mixture:
+    n = len(components)
+    index = {fluid.id: i for i, fluid in enumerate(components)}
+    b, alpha = np.zeros((n, n)), np.zeros((n, n))
+    binaries = []
+    for pair in pairs:
+        i, j = (index[c] for c in pair.components)
+        b[i, j], b[j, i] = pair.b_ij, pair.b_ji
+        alpha[i, j] = alpha[j, i] = pair.alpha
+        two = Nrtl(np.zeros((2, 2)), np.array([[0.0, pair.b_ij], [pair.b_ji, 0.0]]), (1 - np.eye(2)) * pair.alpha)
+        binaries.append(Binary(pair.components, two, (pair.t_min - SPLIT_MARGIN, pair.t_max + SPLIT_MARGIN), pair))
+    return Mixture(components, "nrtl", Nrtl(np.zeros((n, n)), b, alpha), tuple(binaries))
 
 
 Basis = Literal["mole", "mass"]

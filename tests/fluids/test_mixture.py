@@ -7,6 +7,7 @@ import pytest
 
 from service.fluids.catalog import Catalog
 from service.fluids.fluid import Fluid
+from service.fluids.groups import load_groups
 from service.fluids.limits import OutOfRange, Refusal
 from service.fluids.mixture import Mixture, Model, mixture
 from service.fluids.pairs import NrtlPair, load_nrtl_pairs
@@ -22,7 +23,7 @@ def pairs(catalog: Catalog[Fluid]) -> Pairs:
 
 
 def of(catalog: Catalog[Fluid], pairs: Pairs, *ids: str, model: Model = "auto") -> Mixture:
-    return mixture([catalog.get(i) for i in ids], pairs, model)
+    return mixture([catalog.get(i) for i in ids], pairs, load_groups(catalog), model)
 
 
 def binary(x1: float) -> np.ndarray:
@@ -65,9 +66,25 @@ def test_dew_point_of_the_bubble_vapor(catalog: Catalog[Fluid], pairs: Pairs) ->
     np.testing.assert_allclose(mix.bubble_pressure(bubble.temperature, x).pressure, p, rtol=1e-9)
 
 
-def test_a_pair_without_parameters_is_refused_not_ideal(catalog: Catalog[Fluid], pairs: Pairs) -> None:
-    with pytest.raises(Refusal, match="No built-in NRTL parameters for ethanol/ammonia"):
+def test_a_pair_without_parameters_falls_back_to_unifac_with_a_caution(catalog: Catalog[Fluid], pairs: Pairs) -> None:
+    # Acetone and n-hexane have no DECHEMA set here: auto answers with UNIFAC and says so. Acetone and n-hexane
+    # form a minimum-boiling azeotrope near 49.8 degC at 1 atm (CRC Handbook, azeotropic data; recalled), so an
+    # equimolar liquid boils a little above it.
+    mix = of(catalog, pairs, "acetone", "n-hexane")
+    assert mix.model == "unifac"
+    found = mix.bubble_point(ATMOSPHERE, binary(0.5))
+    assert found.temperature[0] - 273.15 == pytest.approx(50.5, abs=1.5)
+    assert any("UNIFAC" in str(w) for w in found.warnings)
+
+
+def test_never_an_ideal_solution_unasked(catalog: Catalog[Fluid], pairs: Pairs) -> None:
+    with pytest.raises(Refusal, match="No built-in NRTL parameters for acetone/n-hexane"):
+        of(catalog, pairs, "acetone", "n-hexane", model="nrtl")
+    with pytest.raises(Refusal, match="No UNIFAC groups are assigned to ammonia"):
         of(catalog, pairs, "ethanol", "ammonia")
+    # Original UNIFAC answers glycols with water badly (common practice, no source): refused, not predicted.
+    with pytest.raises(Refusal, match="polyols with water"):
+        of(catalog, pairs, "ethylene-glycol", "water")
 
 
 def test_two_liquid_phases_are_refused(catalog: Catalog[Fluid], pairs: Pairs) -> None:

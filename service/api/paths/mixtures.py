@@ -100,10 +100,11 @@ BASIS = fields.String(
 )
 MODEL = fields.String(
     load_default="auto",
-    validate=validate.OneOf(["auto", "nrtl", "ideal"]),
+    validate=validate.OneOf(["auto", "nrtl", "unifac", "ideal"]),
     metadata={
-        "description": "auto: the built-in NRTL parameters of every pair (a pair without them is refused); nrtl: "
-        "the same; ideal: Raoult's law, for mixtures known to be ideal."
+        "description": "auto: the built-in NRTL parameters where every pair has them, else the UNIFAC group "
+        "prediction with a warning; nrtl: fitted pairs only (a missing pair refused); unifac: the group prediction; "
+        "ideal: Raoult's law, for mixtures known to be ideal."
     },
 )
 TEMPERATURE = Input("temperature", "Temperature, instead of a pressure: the answer is then a pressure.")
@@ -143,18 +144,15 @@ def _answer(inputs: Inputs, dew: bool) -> dict[str, Any]:
     }
     if len(ids) == 2:
         answer["relative_volatility"] = quantity(found.k_values[..., 0] / found.k_values[..., 1], RATIO)
-    return {**answer, "model": _model_name(inputs), **provenance(found, inputs.units)}
-
-
-def _model_name(inputs: Inputs) -> str:
-    return "ideal" if inputs.options["model"] == "ideal" else "nrtl"
+    return {**answer, "model": mix.model, **provenance(found, inputs.units)}
 
 
 def _mixture(inputs: Inputs) -> Mixture:
     """The request's components under its model; ``components`` is required."""
     if inputs.options.get("components") is None:
         raise invalid("components", "is required")
-    return mixture([resolve_catalog_fluid(n) for n in inputs.options["components"]], pairs(), inputs.options["model"])
+    components = [resolve_catalog_fluid(n) for n in inputs.options["components"]]
+    return mixture(components, pairs(), current_app.extensions["groups"], inputs.options["model"])
 
 
 def azeotrope_of(inputs: Inputs) -> dict[str, Any]:
@@ -174,7 +172,7 @@ def azeotrope_of(inputs: Inputs) -> dict[str, Any]:
         **pressure_fields(inputs, found.local, inputs.units["pressure"]),
         "azeotrope": point,
         "reason": found.reason,
-        "model": _model_name(inputs),
+        "model": mix.model,
         **provenance(found, inputs.units),
     }
 

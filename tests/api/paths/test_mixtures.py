@@ -80,10 +80,12 @@ def test_csv_answer_has_a_column_per_component(client) -> None:
         ("components=ethanol,water&fractions=0.5,0.5&pressure=100&temperature=80", 400, "temperature"),
         ("fractions=0.5,0.5&pressure=100", 400, "components"),
         ("components=ethanol,ammonia&fractions=0.5,0.5&pressure=100", 422, "components"),
+        ("components=ethylene-glycol,water&fractions=0.5,0.5&pressure=100", 422, "components"),
+        ("components=acetone,n-hexane&fractions=0.5,0.5&pressure=100&model=nrtl", 422, "components"),
         ("components=water,1-butanol&fractions=0.5,0.5&pressure=100", 422, "pressure"),
         ("components=benzene,toluene&fractions=0.5,0.5&pressure=1200", 422, "pressure"),
         ("components=methanol,water&fractions=0.5,0.5&temperature=250", 422, "temperature"),
-        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=unifac", 400, "model"),
+        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=wilson", 400, "model"),
     ],
 )
 def test_refusals(client, query: str, status: int, field: str) -> None:
