@@ -24,7 +24,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from bench.common import free_port, gunicorn, machine, write_section
 from service.fluids.catalog import load_catalog
-from service.fluids.groups import load_groups
+from service.fluids.groups import load_group_tables
 from service.fluids.mixture import mixture
 from service.fluids.pairs import load_nrtl_pairs
 
@@ -43,7 +43,7 @@ def compositions(n: int) -> np.ndarray:
 def physics_seconds_per_point() -> float:
     catalog = load_catalog()
     mix = mixture(
-        [catalog.get("ethanol"), catalog.get("water")], load_nrtl_pairs(catalog), load_groups(catalog), "nrtl"
+        [catalog.get("ethanol"), catalog.get("water")], load_nrtl_pairs(catalog), load_group_tables(catalog), "nrtl"
     )
     x, p = compositions(POINTS), np.full(POINTS, 101_325.0)
     mix.bubble_point(p, x)  # the pair's liquid-split table is built once

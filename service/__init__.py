@@ -12,7 +12,7 @@ from service.api.answer_cache import AnswerCache
 from service.api.json_provider import OrjsonProvider
 from service.config import settings
 from service.fluids.catalog import load_catalog
-from service.fluids.groups import load_groups
+from service.fluids.groups import load_group_tables
 from service.fluids.pairs import load_nrtl_pairs
 from service.fluids.solutes import load_solutes
 
@@ -27,7 +27,7 @@ def create_app(config: Mapping[str, Any] | None = None) -> Flask:
     app.extensions["catalog"] = load_catalog(extra_files=app.config["EXTRA_CATALOGS"])
     app.extensions["solutes"] = load_solutes()
     app.extensions["pairs"] = load_nrtl_pairs(app.extensions["catalog"])
-    app.extensions["groups"] = load_groups(app.extensions["catalog"])
+    app.extensions["groups"] = load_group_tables(app.extensions["catalog"])
     app.extensions["answers"] = AnswerCache(app.config["ANSWER_CACHE_SIZE"])
     observability.configure_logging(app.config["LOG_LEVEL"])
     observability.install(app)

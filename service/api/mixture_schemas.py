@@ -22,7 +22,7 @@ class _PhasePoint(Provenance):
     k_values = _by_component("K = y/x of each component.")
     activity_coefficients = _by_component("The liquid's activity coefficient of each component.")
     relative_volatility = fields.Nested(Fraction, metadata={"description": "K1/K2, for two components."})
-    model = fields.String(required=True, metadata={"description": "nrtl, unifac or ideal."})
+    model = fields.String(required=True, metadata={"description": "nrtl, unifac, unifac-dortmund or ideal."})
 
 
 class BubblePointAnswer(_PhasePoint):
@@ -70,4 +70,4 @@ class AzeotropeAnswer(Provenance):
     reason = fields.String(
         required=True, allow_none=True, metadata={"description": "Why there is none, where azeotrope is null."}
     )
-    model = fields.String(required=True, metadata={"description": "nrtl, unifac or ideal."})
+    model = fields.String(required=True, metadata={"description": "nrtl, unifac, unifac-dortmund or ideal."})

@@ -17,7 +17,6 @@ from typing import Literal
 import numpy as np
 from numpy.typing import NDArray
 
-from service.fluids import groups
 from service.fluids.cautions import Caution, Shown, Warnings, literal
 from service.fluids.fluid import Fluid
 from service.fluids.groups import GroupTable
@@ -29,7 +28,7 @@ from service.physics.activity.nrtl import Nrtl
 from service.physics.activity.unifac import Unifac
 from service.physics.equilibrium import ModifiedRaoult
 
-Model = Literal["auto", "nrtl", "unifac", "ideal"]
+Model = Literal["auto", "nrtl", "unifac", "unifac-dortmund", "ideal"]
 WARN_PRESSURE = 0.5e6
 """Above this [Pa] an ideal vapor departs from real vapors by a few percent: a warning (common practice, no source)."""
 MAX_PRESSURE = 1.0e6
@@ -70,11 +69,13 @@ class Mixture:
     """Liquid mixtures of ``components`` (catalog fluids, in the request's order) under one activity model."""
 
     components: tuple[Fluid, ...]
-    model: Literal["nrtl", "unifac", "ideal"]
+    model: Literal["nrtl", "unifac", "unifac-dortmund", "ideal"]
     activity: Nrtl | Unifac | None
     binaries: tuple[Binary, ...] = ()
     notes: tuple[str, ...] = ()
     """Cautions every answer of this mixture carries (a group prediction where fitted pairs were missing)."""
+    group_table: GroupTable | None = None
+    """The group-contribution table the model comes from, where it is a group method."""
 
     def log_gamma(self, x: Array, temperature: Array) -> Array:
         """ln gamma (N, n) at mole fractions ``x`` (N, n) and ``temperature`` [K] (N,)."""
@@ -102,7 +103,7 @@ class Mixture:
             sources = "; ".join(f"{'/'.join(b.ids)}: {b.fitted.source}" for b in self.binaries if b.fitted)
             model = [("NRTL (Renon and Prausnitz 1968)", sources)]
         else:
-            model = [(groups.METHOD, groups.SOURCE)] if self.model == "unifac" else []
+            model = [(self.group_table.method, self.group_table.source)] if self.group_table else []
         return [*model, *((f.method, f.source) for f in self.components)]
 
     def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:
@@ -231,11 +232,15 @@ def _unstable(binary: Binary) -> tuple[Array, Array]:
 
 
 def mixture(
-    components: Sequence[Fluid], pairs: Mapping[frozenset[str], NrtlPair], table: GroupTable, model: Model
+    components: Sequence[Fluid],
+    pairs: Mapping[frozenset[str], NrtlPair],
+    tables: Mapping[str, GroupTable],
+    model: Model,
 ) -> Mixture:
     """The mixture of ``components`` under ``model``: ``ideal`` (Raoult's law); ``nrtl`` with the built-in pair of
-    every two components (a missing pair refused); ``unifac``, the group prediction; ``auto``, NRTL where every pair
-    has parameters, else UNIFAC with a caution, else refused: never an ideal solution unasked."""
+    every two components (a missing pair refused); ``unifac`` or ``unifac-dortmund``, a group prediction from
+    ``tables``; ``auto``, NRTL where every pair has parameters, else original UNIFAC with a caution, else refused:
+    never an ideal solution unasked."""
     ids = [fluid.id for fluid in components]
     if len(set(ids)) != len(ids):
         raise Refusal("A component is named twice.", {"components": ["repeated"]}, 400)
@@ -254,7 +259,7 @@ def mixture(
         for second in ids[i + 1 :]:
             pair = pairs.get(frozenset((first, second)))
             (found if pair else missing).append(pair or f"{first}/{second}")
-    if not missing and model != "unifac":
+    if not missing and model in ("auto", "nrtl"):
         return _nrtl_mixture(tuple(components), found)
     if model == "nrtl":
         raise Refusal(
@@ -268,12 +273,13 @@ def mixture(
             f"No fitted NRTL parameters for {', '.join(missing)}: the answer is the UNIFAC group-contribution "
             "prediction, typically within a few kelvin of measured bubble points, and less sure than a fitted pair.",
         )
-    unifac = table.model(components)
+    form = "unifac" if model == "auto" else model
+    table = tables[form]
     scan = _scan(components)
     binaries = tuple(
         Binary((a.id, b.id), table.model([a, b]), scan) for i, a in enumerate(components) for b in components[i + 1 :]
     )
-    return Mixture(tuple(components), "unifac", unifac, binaries, notes)
+    return Mixture(tuple(components), form, table.model(components), binaries, notes, table)
 
 
 def _scan(components: Sequence[Fluid]) -> tuple[float, float]:

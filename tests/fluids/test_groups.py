@@ -8,7 +8,7 @@ import pytest
 
 from service.fluids.catalog import Catalog, CatalogError
 from service.fluids.fluid import Fluid
-from service.fluids.groups import GROUP_FILE, load_groups
+from service.fluids.groups import GROUP_FILE, load_group_tables, load_groups
 from service.fluids.limits import Refusal
 
 
@@ -46,3 +46,10 @@ def test_a_bad_table_stops_start_up(
     path.write_text(GROUP_FILE.read_text(encoding="utf-8").replace(*change, 1), encoding="utf-8")
     with pytest.raises(CatalogError, match=message):
         load_groups(catalog, path)
+
+
+def test_both_group_methods_load(catalog: Catalog[Fluid]) -> None:
+    tables = load_group_tables(catalog)
+    assert set(tables) == {"unifac", "unifac-dortmund"}
+    # Modified UNIFAC counts a secondary OH apart (Weidlich and Gmehling 1987): 2-propanol has one.
+    assert tables["unifac-dortmund"].fluids["2-propanol"] == {"CH3": 2, "CH": 1, "OH_S": 1}

@@ -7,7 +7,7 @@ import pytest
 
 from service.fluids.catalog import Catalog
 from service.fluids.fluid import Fluid
-from service.fluids.groups import load_groups
+from service.fluids.groups import load_group_tables
 from service.fluids.limits import OutOfRange, Refusal
 from service.fluids.mixture import Mixture, Model, mixture
 from service.fluids.pairs import NrtlPair, load_nrtl_pairs
@@ -23,7 +23,7 @@ def pairs(catalog: Catalog[Fluid]) -> Pairs:
 
 
 def of(catalog: Catalog[Fluid], pairs: Pairs, *ids: str, model: Model = "auto") -> Mixture:
-    return mixture([catalog.get(i) for i in ids], pairs, load_groups(catalog), model)
+    return mixture([catalog.get(i) for i in ids], pairs, load_group_tables(catalog), model)
 
 
 def binary(x1: float) -> np.ndarray:

@@ -100,11 +100,11 @@ BASIS = fields.String(
 )
 MODEL = fields.String(
     load_default="auto",
-    validate=validate.OneOf(["auto", "nrtl", "unifac", "ideal"]),
+    validate=validate.OneOf(["auto", "nrtl", "unifac", "unifac-dortmund", "ideal"]),
     metadata={
         "description": "auto: the built-in NRTL parameters where every pair has them, else the UNIFAC group "
-        "prediction with a warning; nrtl: fitted pairs only (a missing pair refused); unifac: the group prediction; "
-        "ideal: Raoult's law, for mixtures known to be ideal."
+        "prediction with a warning; nrtl: fitted pairs only (a missing pair refused); unifac: original UNIFAC; "
+        "unifac-dortmund: modified UNIFAC (Dortmund); ideal: Raoult's law, for mixtures known to be ideal."
     },
 )
 TEMPERATURE = Input("temperature", "Temperature, instead of a pressure: the answer is then a pressure.")

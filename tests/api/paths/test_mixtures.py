@@ -152,3 +152,12 @@ def test_azeotrope_refusals(client, query: str, field: str) -> None:
 def test_azeotrope_takes_one_pressure_per_request(client) -> None:
     r = client.post("/v1/azeotrope", json={"components": ["ethanol", "water"], "pressure": [100, 50]})
     assert "pressure" in problem(r, 400)["errors"]
+
+
+def test_modified_unifac_on_request(client) -> None:
+    # The group methods near the fitted NRTL for ethanol-water at x = 0.097 (86.7 degC published, recalled).
+    body = client.get(f"{ETHANOL_WATER}&fractions=0.097,0.903&pressure=101.325&model=unifac-dortmund").get_json()
+    assert body["model"] == "unifac-dortmund" and "Dortmund" in body["method"]
+    assert body["bubble_point"]["value"] == pytest.approx(86.7, abs=3.0)
+    glycol = "/v1/bubble-point?components=ethylene-glycol,water&fractions=0.5,0.5&pressure=101.325"
+    assert "102.7 degC" in problem(client.get(f"{glycol}&model=unifac-dortmund"), 422)["detail"]
