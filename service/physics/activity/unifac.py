@@ -1,9 +1,8 @@
 """The UNIFAC group-contribution method (A. Fredenslund, R. L. Jones and J. M. Prausnitz, AIChE J. 21 (1975)
 1086-1099), as the original UNIFAC tables use it (H. K. Hansen et al., Ind. Eng. Chem. Res. 30 (1991) 2352).
 
-ln gamma_i = ln gamma_i^C + ln gamma_i^R. Combinatorial: with r_i = sum_k nu_ki R_k, q_i = sum_k nu_ki Q_k,
-phi_i = r_i x_i / sum r x, theta_i = q_i x_i / sum q x and l_i = 5 (r_i - q_i) - (r_i - 1),
-ln gamma_i^C = ln(phi_i / x_i) + 5 q_i ln(theta_i / phi_i) + l_i - (phi_i / x_i) sum_j x_j l_j.
+ln gamma_i = ln gamma_i^C + ln gamma_i^R. Combinatorial: UNIQUAC's (:func:`~service.physics.activity.uniquac.
+combinatorial`), with r_i = sum_k nu_ki R_k and q_i = sum_k nu_ki Q_k.
 Residual: ln gamma_i^R = sum_k nu_ki (ln Gamma_k - ln Gamma_k^(i)), with, for group fractions X_m and
 Theta_m = Q_m X_m / sum Q X, ln Gamma_k = Q_k [1 - ln(sum_m Theta_m psi_mk) - sum_m Theta_m psi_km / sum_n
 Theta_n psi_nm], psi_mn = exp(-a_mn / T); Gamma_k^(i) the same in pure component i.
@@ -15,6 +14,8 @@ from dataclasses import dataclass, field
 
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
+
+from service.physics.activity.uniquac import combinatorial
 
 Array = NDArray[np.float64]
 
@@ -55,11 +56,7 @@ class Unifac:
         return np.exp(-self.a / temperature)
 
     def _combinatorial(self, x: Array) -> Array:
-        r_i, q_i = self.counts @ self.r, self.counts @ self.q
-        phi_x = r_i / (x @ r_i)[..., None]  # phi_i / x_i, finite at x_i = 0
-        theta_phi = (q_i / (x @ q_i)[..., None]) / phi_x
-        ell = 5.0 * (r_i - q_i) - (r_i - 1.0)
-        return np.log(phi_x) + 5.0 * q_i * np.log(theta_phi) + ell - phi_x * (x @ ell)[..., None]
+        return combinatorial(x, self.counts @ self.r, self.counts @ self.q)
 
     def _group_log_gamma(self, fractions: Array, psi: Array) -> Array:
         """ln Gamma_k for group fractions (..., G) and psi (..., G, G)."""
