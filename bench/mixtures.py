@@ -25,8 +25,8 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 from bench.common import free_port, gunicorn, machine, write_section
 from service.fluids.catalog import load_catalog
 from service.fluids.groups import load_group_tables
-from service.fluids.mixture import mixture
-from service.fluids.pairs import load_nrtl_pairs
+from service.fluids.model_choice import mixture
+from service.fluids.pairs import load_pair_sets
 
 POINTS = 100_000
 REPEATS = 7
@@ -43,7 +43,7 @@ def compositions(n: int) -> np.ndarray:
 def physics_seconds_per_point() -> float:
     catalog = load_catalog()
     mix = mixture(
-        [catalog.get("ethanol"), catalog.get("water")], load_nrtl_pairs(catalog), load_group_tables(catalog), "nrtl"
+        [catalog.get("ethanol"), catalog.get("water")], load_pair_sets(catalog), load_group_tables(catalog), "nrtl"
     )
     x, p = compositions(POINTS), np.full(POINTS, 101_325.0)
     mix.bubble_point(p, x)  # the pair's liquid-split table is built once

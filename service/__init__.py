@@ -13,7 +13,7 @@ from service.api.json_provider import OrjsonProvider
 from service.config import settings
 from service.fluids.catalog import load_catalog
 from service.fluids.groups import load_group_tables
-from service.fluids.pairs import load_nrtl_pairs
+from service.fluids.pairs import load_pair_sets
 from service.fluids.solutes import load_solutes
 
 
@@ -26,7 +26,7 @@ def create_app(config: Mapping[str, Any] | None = None) -> Flask:
     # A bad operator file raises CatalogError here, naming file, entry and field: start-up stops.
     app.extensions["catalog"] = load_catalog(extra_files=app.config["EXTRA_CATALOGS"])
     app.extensions["solutes"] = load_solutes()
-    app.extensions["pairs"] = load_nrtl_pairs(app.extensions["catalog"])
+    app.extensions["pairs"] = load_pair_sets(app.extensions["catalog"])
     app.extensions["groups"] = load_group_tables(app.extensions["catalog"])
     app.extensions["answers"] = AnswerCache(app.config["ANSWER_CACHE_SIZE"])
     observability.configure_logging(app.config["LOG_LEVEL"])

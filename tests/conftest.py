@@ -15,6 +15,10 @@ from werkzeug.exceptions import MethodNotAllowed, NotFound
 
 from service import create_app
 from service.fluids.catalog import Catalog, load_catalog
+from service.fluids.groups import load_group_tables
+from service.fluids.mixture import Mixture, Model
+from service.fluids.model_choice import mixture
+from service.fluids.pairs import load_pair_sets
 
 ROOT = Path(__file__).resolve().parents[1]
 
@@ -44,6 +48,22 @@ def app() -> Flask:
 def catalog() -> Catalog:
     """The built-in fluid catalog, loaded and validated once."""
     return load_catalog()
+
+
+class MixtureOf:
+    """``mixture_of("ethanol", "water", model="wilson")``: a mixture of catalog fluids with the built-in pairs and
+    group tables."""
+
+    def __init__(self, catalog: Catalog) -> None:
+        self.catalog, self.pairs, self.groups = catalog, load_pair_sets(catalog), load_group_tables(catalog)
+
+    def __call__(self, *ids: str, model: Model = "auto") -> Mixture:
+        return mixture([self.catalog.get(i) for i in ids], self.pairs, self.groups, model)
+
+
+@pytest.fixture(scope="session")
+def mixture_of(catalog: Catalog) -> MixtureOf:
+    return MixtureOf(catalog)
 
 
 class ContractClient:

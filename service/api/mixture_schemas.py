@@ -14,6 +14,13 @@ def _by_component(description: str) -> fields.Dict:
     )
 
 
+def _model_used() -> fields.String:
+    return fields.String(
+        required=True,
+        metadata={"description": "The model used: nrtl, wilson, uniquac, unifac, unifac-dortmund or ideal."},
+    )
+
+
 class _PhasePoint(Provenance):
     components = fields.List(fields.String(), required=True, metadata={"description": "Catalog ids, in order."})
     gauge_pressure = fields.Nested(Pressure, metadata={"description": "The gauge reading sent."})
@@ -22,7 +29,7 @@ class _PhasePoint(Provenance):
     k_values = _by_component("K = y/x of each component.")
     activity_coefficients = _by_component("The liquid's activity coefficient of each component.")
     relative_volatility = fields.Nested(Fraction, metadata={"description": "K1/K2, for two components."})
-    model = fields.String(required=True, metadata={"description": "nrtl, unifac, unifac-dortmund or ideal."})
+    model = _model_used()
 
 
 class BubblePointAnswer(_PhasePoint):
@@ -45,7 +52,11 @@ class PairEntry(Schema):
         keys=fields.String(),
         values=fields.Float(),
         required=True,
-        metadata={"description": "NRTL: tau_12 = b12/T and tau_21 = b21/T with b in K, and alpha."},
+        metadata={
+            "description": "b in K. NRTL: tau_12 = b12/T, tau_21 = b21/T, and alpha. Wilson: Lambda_12 = exp(a12 + "
+            "b12/T), Lambda_21 = exp(a21 + b21/T). UNIQUAC: tau_12 = exp(b12/T), tau_21 = exp(b21/T), and each "
+            "component's volume r and area q."
+        },
     )
     temperature_min = fields.Nested(Temperature, required=True)
     temperature_max = fields.Nested(Temperature, required=True)
@@ -70,4 +81,4 @@ class AzeotropeAnswer(Provenance):
     reason = fields.String(
         required=True, allow_none=True, metadata={"description": "Why there is none, where azeotrope is null."}
     )
-    model = fields.String(required=True, metadata={"description": "nrtl, unifac, unifac-dortmund or ideal."})
+    model = _model_used()

@@ -9,7 +9,6 @@ temperature of the answer. SI throughout: temperature [K], pressure [Pa], mole f
 
 from __future__ import annotations
 
-from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
 from typing import Literal
@@ -21,22 +20,27 @@ from service.fluids.cautions import Caution, Shown, Warnings, literal
 from service.fluids.fluid import Fluid
 from service.fluids.groups import GroupTable
 from service.fluids.limits import Refusal, any_of, refuse_outside
-from service.fluids.pairs import NrtlPair
+from service.fluids.pairs import Activity, FittedPair, PairSet
 from service.fluids.questions import Answer
 from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
-from service.physics.activity.nrtl import Nrtl
 from service.physics.activity.unifac import Unifac
 from service.physics.equilibrium import ModifiedRaoult
 
-Model = Literal["auto", "nrtl", "unifac", "unifac-dortmund", "ideal"]
+Model = Literal["auto", "nrtl", "wilson", "uniquac", "unifac", "unifac-dortmund", "ideal"]
+MODEL_NAMES = {
+    "nrtl": "NRTL",
+    "wilson": "Wilson",
+    "uniquac": "UNIQUAC",
+    "unifac": "UNIFAC",
+    "unifac-dortmund": "modified UNIFAC (Dortmund)",
+    "ideal": "Raoult's law",
+}
 WARN_PRESSURE = 0.5e6
 """Above this [Pa] an ideal vapor departs from real vapors by a few percent: a warning (common practice, no source)."""
 MAX_PRESSURE = 1.0e6
 """Above this [Pa] modified Raoult's law is not answered (common practice, no source)."""
 SPLIT_GRID = np.linspace(0.01, 0.99, 99)
 """Compositions at which a pair's liquid is tested for splitting into two phases."""
-SPLIT_MARGIN = 20.0
-"""How far [K] beyond a pair's stated range its liquid is tested for splitting (the answers may reach there)."""
 
 Array = NDArray[np.float64]
 
@@ -54,14 +58,16 @@ class Equilibrium:
 
 @dataclass(frozen=True)
 class Binary:
-    """Two components of a mixture under its activity model, for the test of two liquid phases; ``fitted``: the
-    NRTL pair's stated range [K], where the model is a fitted pair's."""
+    """Two components of a mixture: ``model`` tests their liquid for two phases (the mixture's own model, or
+    another where it cannot describe them: Wilson's), named ``judge``; ``fitted``: the pair the answer uses, whose
+    stated range [K] warns."""
 
     ids: tuple[str, str]
-    model: Nrtl | Unifac
+    model: Activity | Unifac
     scan: tuple[float, float]
     """The temperatures [K] over which the liquid is tested for splitting."""
-    fitted: NrtlPair | None = None
+    judge: str
+    fitted: FittedPair | None = None
 
 
 @dataclass(frozen=True)
@@ -69,13 +75,15 @@ class Mixture:
     """Liquid mixtures of ``components`` (catalog fluids, in the request's order) under one activity model."""
 
     components: tuple[Fluid, ...]
-    model: Literal["nrtl", "unifac", "unifac-dortmund", "ideal"]
-    activity: Nrtl | Unifac | None
+    model: Literal["nrtl", "wilson", "uniquac", "unifac", "unifac-dortmund", "ideal"]
+    activity: Activity | Unifac | None
     binaries: tuple[Binary, ...] = ()
     notes: tuple[str, ...] = ()
     """Cautions every answer of this mixture carries (a group prediction where fitted pairs were missing)."""
     group_table: GroupTable | None = None
     """The group-contribution table the model comes from, where it is a group method."""
+    pair_set: PairSet | None = None
+    """The fitted pairs the model comes from, where it is a fitted model."""
 
     def log_gamma(self, x: Array, temperature: Array) -> Array:
         """ln gamma (N, n) at mole fractions ``x`` (N, n) and ``temperature`` [K] (N,)."""
@@ -99,11 +107,14 @@ class Mixture:
     @property
     def citations(self) -> list[tuple[str, str]]:
         """(method, source) of the activity model and of each component's vapor-pressure equation."""
-        if self.model == "nrtl":
+        model = []
+        if self.pair_set:
             sources = "; ".join(f"{'/'.join(b.ids)}: {b.fitted.source}" for b in self.binaries if b.fitted)
-            model = [("NRTL (Renon and Prausnitz 1968)", sources)]
-        else:
-            model = [(self.group_table.method, self.group_table.source)] if self.group_table else []
+            model.append((self.pair_set.method, sources))
+            if self.pair_set.sizes:
+                model.append(("UNIQUAC volume r and area q of each component", self.pair_set.sizes_source))
+        elif self.group_table:
+            model.append((self.group_table.method, self.group_table.source))
         return [*model, *((f.method, f.source) for f in self.components)]
 
     def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:
@@ -194,7 +205,7 @@ class Mixture:
             if any_of(split):
                 raise Refusal(
                     f"{names} form two liquid phases at this temperature over part of their composition range "
-                    f"(the {self.model.upper()} model predicts it); a single-liquid bubble or dew point is not "
+                    f"(the {binary.judge} model predicts it); a single-liquid bubble or dew point is not "
                     "answered there.",
                     {field: ["two liquid phases at this temperature"]},
                 )
@@ -205,8 +216,8 @@ class Mixture:
             if any_of(outside):
                 warnings.append(
                     Caution(
-                        f"The NRTL parameters of {names} are used outside the temperatures they were fitted at "
-                        "(about {low} to {high}): extrapolated, accuracy unknown.",
+                        f"The {MODEL_NAMES[pair.model]} parameters of {names} are used outside the temperatures they "
+                        "were fitted at (about {low} to {high}): extrapolated, accuracy unknown.",
                         outside,
                         {"low": Shown(pair.t_min, "temperature"), "high": Shown(pair.t_max, "temperature")},
                     )
@@ -214,7 +225,7 @@ class Mixture:
         return warnings
 
 
-_SPLITS: dict[tuple[str, tuple[str, str]], tuple[Array, Array]] = {}
+_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array]] = {}
 """The liquid-split tables by model and pair, computed once each."""
 
 
@@ -222,84 +233,13 @@ def _unstable(binary: Binary) -> tuple[Array, Array]:
     """Temperatures [K] over the binary's scan, and 1 where its liquid is unstable at some composition, else 0:
     where d2(g_mix/RT)/dx2 < 0, g_mix/RT = sum x ln(x gamma) (the spinodal; at a temperature where a binary has
     one, it has two liquid phases over a composition range)."""
-    key = (type(binary.model).__name__, binary.ids)
+    key = (type(binary.model).__name__, binary.ids, binary.scan)
     if key not in _SPLITS:
         temperatures = np.arange(binary.scan[0], binary.scan[1] + 0.5, 1.0)
         x = np.stack([SPLIT_GRID, 1.0 - SPLIT_GRID], axis=-1)[None, :, :]
         g = (x * (np.log(x) + binary.model.log_gamma(x, temperatures[:, None]))).sum(-1)
         _SPLITS[key] = temperatures, np.any(np.diff(g, n=2, axis=-1) < 0.0, axis=-1).astype(float)
     return _SPLITS[key]
-
-
-def mixture(
-    components: Sequence[Fluid],
-    pairs: Mapping[frozenset[str], NrtlPair],
-    tables: Mapping[str, GroupTable],
-    model: Model,
-) -> Mixture:
-    """The mixture of ``components`` under ``model``: ``ideal`` (Raoult's law); ``nrtl`` with the built-in pair of
-    every two components (a missing pair refused); ``unifac`` or ``unifac-dortmund``, a group prediction from
-    ``tables``; ``auto``, NRTL where every pair has parameters, else original UNIFAC with a caution, else refused:
-    never an ideal solution unasked."""
-    ids = [fluid.id for fluid in components]
-    if len(set(ids)) != len(ids):
-        raise Refusal("A component is named twice.", {"components": ["repeated"]}, 400)
-    if len(ids) < 2:
-        raise Refusal("A mixture has two components or more.", {"components": ["fewer than two"]}, 400)
-    for fluid in components:
-        if fluid.vapor_associates:
-            raise Refusal(
-                f"{fluid.vapor_associates} A bubble or dew point with {fluid.name} is not answered.",
-                {"components": [f"{fluid.id}: its vapor associates"]},
-            )
-    if model == "ideal":
-        return Mixture(tuple(components), "ideal", None)
-    found, missing = [], []
-    for i, first in enumerate(ids):
-        for second in ids[i + 1 :]:
-            pair = pairs.get(frozenset((first, second)))
-            (found if pair else missing).append(pair or f"{first}/{second}")
-    if not missing and model in ("auto", "nrtl"):
-        return _nrtl_mixture(tuple(components), found)
-    if model == "nrtl":
-        raise Refusal(
-            f"No built-in NRTL parameters for {', '.join(missing)} (GET /v1/pairs lists them); model=auto falls back "
-            "to the UNIFAC group prediction.",
-            {"components": [f"no parameters for {m}" for m in missing]},
-        )
-    notes = ()
-    if model == "auto":
-        notes = (
-            f"No fitted NRTL parameters for {', '.join(missing)}: the answer is the UNIFAC group-contribution "
-            "prediction, typically within a few kelvin of measured bubble points, and less sure than a fitted pair.",
-        )
-    form = "unifac" if model == "auto" else model
-    table = tables[form]
-    scan = _scan(components)
-    binaries = tuple(
-        Binary((a.id, b.id), table.model([a, b]), scan) for i, a in enumerate(components) for b in components[i + 1 :]
-    )
-    return Mixture(tuple(components), form, table.model(components), binaries, notes, table)
-
-
-def _scan(components: Sequence[Fluid]) -> tuple[float, float]:
-    """The temperatures [K] where every component has a liquid by its equation, within 200 to 600 K."""
-    lows, highs = zip(*(fluid.temperature_limits for fluid in components), strict=True)
-    return max(*lows, 200.0), min(*highs, 600.0)
-
-
-def _nrtl_mixture(components: tuple[Fluid, ...], pairs: list[NrtlPair]) -> Mixture:
-    n = len(components)
-    index = {fluid.id: i for i, fluid in enumerate(components)}
-    b, alpha = np.zeros((n, n)), np.zeros((n, n))
-    binaries = []
-    for pair in pairs:
-        i, j = (index[c] for c in pair.components)
-        b[i, j], b[j, i] = pair.b_ij, pair.b_ji
-        alpha[i, j] = alpha[j, i] = pair.alpha
-        two = Nrtl(np.zeros((2, 2)), np.array([[0.0, pair.b_ij], [pair.b_ji, 0.0]]), (1 - np.eye(2)) * pair.alpha)
-        binaries.append(Binary(pair.components, two, (pair.t_min - SPLIT_MARGIN, pair.t_max + SPLIT_MARGIN), pair))
-    return Mixture(components, "nrtl", Nrtl(np.zeros((n, n)), b, alpha), tuple(binaries))
 
 
 Basis = Literal["mole", "mass"]

@@ -6,12 +6,8 @@ import numpy as np
 import pytest
 
 from service.fluids.azeotrope import azeotrope
-from service.fluids.catalog import Catalog
-from service.fluids.fluid import Fluid
-from service.fluids.groups import load_group_tables
-from service.fluids.mixture import mixture
-from service.fluids.pairs import load_nrtl_pairs
 from service.fluids.site_pressure import PressureReadings
+from tests.conftest import MixtureOf
 
 ONE_ATMOSPHERE = PressureReadings(pressure=np.float64(101_325.0))
 
@@ -27,10 +23,8 @@ ONE_ATMOSPHERE = PressureReadings(pressure=np.float64(101_325.0))
         ("ethanol", "benzene", 67.9, 0.448),
     ],
 )
-def test_published_azeotropes(catalog: Catalog[Fluid], first: str, second: str, boils: float, x1: float) -> None:
-    mix = mixture(
-        [catalog.get(first), catalog.get(second)], load_nrtl_pairs(catalog), load_group_tables(catalog), "auto"
-    )
+def test_published_azeotropes(mixture_of: MixtureOf, first: str, second: str, boils: float, x1: float) -> None:
+    mix = mixture_of(first, second)
     found = azeotrope(mix, ONE_ATMOSPHERE)
     assert found.temperature - 273.15 == pytest.approx(boils, abs=0.5)
     assert found.composition[0] == pytest.approx(x1, abs=0.02)
@@ -39,10 +33,8 @@ def test_published_azeotropes(catalog: Catalog[Fluid], first: str, second: str, 
     np.testing.assert_allclose(vapor, found.composition, atol=1e-9)
 
 
-def test_none_says_why(catalog: Catalog[Fluid]) -> None:
+def test_none_says_why(mixture_of: MixtureOf) -> None:
     # Benzene and toluene form no azeotrope: benzene is the lighter throughout (a fact of the trade, no source).
-    mix = mixture(
-        [catalog.get("benzene"), catalog.get("toluene")], load_nrtl_pairs(catalog), load_group_tables(catalog), "auto"
-    )
+    mix = mixture_of("benzene", "toluene")
     found = azeotrope(mix, ONE_ATMOSPHERE)
     assert found.temperature is None and "Benzene is the more volatile" in found.reason

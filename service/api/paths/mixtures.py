@@ -19,8 +19,9 @@ from service.api.problems import invalid
 from service.api.quantity_fields import RATIO, quantity
 from service.api.rendering import provenance
 from service.fluids.azeotrope import azeotrope
-from service.fluids.mixture import Basis, Mixture, mixture, phase_point
-from service.fluids.pairs import NrtlPair
+from service.fluids.mixture import Basis, Mixture, phase_point
+from service.fluids.model_choice import mixture
+from service.fluids.pairs import PairModel, PairSet
 from service.physics.units import UNITS, Unit
 
 blueprint = Blueprint("mixtures", __name__)
@@ -100,17 +101,19 @@ BASIS = fields.String(
 )
 MODEL = fields.String(
     load_default="auto",
-    validate=validate.OneOf(["auto", "nrtl", "unifac", "unifac-dortmund", "ideal"]),
+    validate=validate.OneOf(["auto", "nrtl", "wilson", "uniquac", "unifac", "unifac-dortmund", "ideal"]),
     metadata={
         "description": "auto: the built-in NRTL parameters where every pair has them, else the UNIFAC group "
-        "prediction with a warning; nrtl: fitted pairs only (a missing pair refused); unifac: original UNIFAC; "
-        "unifac-dortmund: modified UNIFAC (Dortmund); ideal: Raoult's law, for mixtures known to be ideal."
+        "prediction with a warning; nrtl, wilson, uniquac: that model's fitted pairs only (a missing pair "
+        "refused; Wilson's mixtures are tested for two liquid phases with the pair's NRTL or UNIQUAC set, else "
+        "UNIFAC); unifac: original UNIFAC; unifac-dortmund: modified UNIFAC (Dortmund); ideal: Raoult's law, for "
+        "mixtures known to be ideal."
     },
 )
 TEMPERATURE = Input("temperature", "Temperature, instead of a pressure: the answer is then a pressure.")
 
 
-def pairs() -> dict[frozenset[str], NrtlPair]:
+def pair_sets() -> dict[PairModel, PairSet]:
     return current_app.extensions["pairs"]
 
 
@@ -152,7 +155,7 @@ def _mixture(inputs: Inputs) -> Mixture:
     if inputs.options.get("components") is None:
         raise invalid("components", "is required")
     components = [resolve_catalog_fluid(n) for n in inputs.options["components"]]
-    return mixture(components, pairs(), current_app.extensions["groups"], inputs.options["model"])
+    return mixture(components, pair_sets(), current_app.extensions["groups"], inputs.options["model"])
 
 
 def azeotrope_of(inputs: Inputs) -> dict[str, Any]:
@@ -243,7 +246,8 @@ for _operation in (
 
 @blueprint.get("/v1/pairs")
 def list_pairs() -> Response:
-    found = sorted(pairs().values(), key=lambda p: p.components)
+    found = sorted((p for s in pair_sets().values() for p in s.pairs.values()), key=lambda p: (p.model, p.components))
+    sizes = {model: s.sizes for model, s in pair_sets().items()}
     names = catalog().entries
     return cacheable(
         {
@@ -252,8 +256,8 @@ def list_pairs() -> Response:
                 {
                     "components": list(p.components),
                     "names": [names[c].name for c in p.components],
-                    "model": "nrtl",
-                    "parameters": {"b12": p.b_ij, "b21": p.b_ji, "alpha": p.alpha},
+                    "model": p.model,
+                    "parameters": {**p.values, **_sizes(sizes[p.model], p.components)},
                     "temperature_min": quantity(p.t_min, UNITS["K"]),
                     "temperature_max": quantity(p.t_max, UNITS["K"]),
                     "source": p.source,
@@ -262,6 +266,14 @@ def list_pairs() -> Response:
             ],
         }
     )
+
+
+def _sizes(sizes: dict[str, tuple[float, float]], components: tuple[str, str]) -> dict[str, float]:
+    """UNIQUAC's r1, q1, r2, q2 where the model has them."""
+    if not sizes:
+        return {}
+    (r1, q1), (r2, q2) = (sizes[c] for c in components)
+    return {"r1": r1, "q1": q1, "r2": r2, "q2": q2}
 
 
 document_get(

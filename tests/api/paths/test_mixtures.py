@@ -85,7 +85,7 @@ def test_csv_answer_has_a_column_per_component(client) -> None:
         ("components=water,1-butanol&fractions=0.5,0.5&pressure=100", 422, "pressure"),
         ("components=benzene,toluene&fractions=0.5,0.5&pressure=1200", 422, "pressure"),
         ("components=methanol,water&fractions=0.5,0.5&temperature=250", 422, "temperature"),
-        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=wilson", 400, "model"),
+        ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=margules", 400, "model"),
     ],
 )
 def test_refusals(client, query: str, status: int, field: str) -> None:
@@ -101,9 +101,20 @@ def test_malformed_fractions_in_a_body(client, fractions: list) -> None:
 
 def test_pairs_are_listed_with_their_sources(client) -> None:
     body = client.get("/v1/pairs").get_json()
-    assert body["count"] == len(body["pairs"]) == 101
-    found = next(p for p in body["pairs"] if p["components"] == ["ethanol", "water"])
-    assert found["parameters"]["alpha"] == 0.2937 and "DECHEMA" in found["source"]
+    assert body["count"] == len(body["pairs"]) == 101 + 100 + 85
+    ethanol_water = {p["model"]: p for p in body["pairs"] if p["components"] == ["ethanol", "water"]}
+    assert set(ethanol_water) == {"nrtl", "wilson", "uniquac"}
+    assert ethanol_water["nrtl"]["parameters"]["alpha"] == 0.2937 and "DECHEMA" in ethanol_water["nrtl"]["source"]
+    assert {"a12", "a21", "b12", "b21"} == set(ethanol_water["wilson"]["parameters"])
+    # UNIQUAC's pairs carry the r and q they were fitted with (ChemSep: ethanol 2.11 and 1.97, water 0.92 and 1.4).
+    assert ethanol_water["uniquac"]["parameters"] | {"b12": 0, "b21": 0} == {
+        "b12": 0,
+        "b21": 0,
+        "r1": 2.11,
+        "q1": 1.97,
+        "r2": 0.92,
+        "q2": 1.4,
+    }
 
 
 @pytest.mark.parametrize(("path", "key"), [("bubble-point", "bubble_point"), ("dew-point", "dew_point")])
@@ -161,3 +172,16 @@ def test_modified_unifac_on_request(client) -> None:
     assert body["bubble_point"]["value"] == pytest.approx(86.7, abs=3.0)
     glycol = "/v1/bubble-point?components=ethylene-glycol,water&fractions=0.5,0.5&pressure=101.325"
     assert "102.7 degC" in problem(client.get(f"{glycol}&model=unifac-dortmund"), 422)["detail"]
+
+
+@pytest.mark.parametrize(("model", "method"), [("wilson", "Wilson (1964)"), ("uniquac", "UNIQUAC")])
+def test_fitted_models_on_request(client, model: str, method: str) -> None:
+    # Ethanol-water at x = 0.097 and 1 atm boils near 86.7 degC with y = 0.438 (Perry's Table 13-1, recalled).
+    body = client.get(f"{ETHANOL_WATER}&fractions=0.097,0.903&pressure=101.325&model={model}").get_json()
+    assert body["model"] == model and method in body["method"] and "ChemSep IPD" in body["source"]
+    assert body["bubble_point"]["value"] == pytest.approx(86.7, abs=0.5)
+    assert body["vapor_composition"]["ethanol"]["value"] == pytest.approx(0.438, abs=0.02)
+    two_liquids = client.get(
+        f"/v1/bubble-point?components=water,1-butanol&fractions=0.5,0.5&pressure=101.325&model={model}"
+    )
+    assert "two liquid phases" in problem(two_liquids, 422)["detail"]
