@@ -25,6 +25,7 @@ from service.fluids.questions import Answer
 from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
 from service.physics.activity.unifac import Unifac
 from service.physics.equilibrium import ModifiedRaoult
+from service.physics.liquid_split import binodal
 
 Model = Literal["auto", "nrtl", "wilson", "uniquac", "unifac", "unifac-dortmund", "ideal"]
 MODEL_NAMES = {
@@ -39,8 +40,6 @@ WARN_PRESSURE = 0.5e6
 """Above this [Pa] an ideal vapor departs from real vapors by a few percent: a warning (common practice, no source)."""
 MAX_PRESSURE = 1.0e6
 """Above this [Pa] modified Raoult's law is not answered (common practice, no source)."""
-SPLIT_GRID = np.linspace(0.01, 0.99, 99)
-"""Compositions at which a pair's liquid is tested for splitting into two phases."""
 
 Array = NDArray[np.float64]
 
@@ -123,7 +122,8 @@ class Mixture:
         start = (x * np.stack([f.saturation_temperature(pressure) for f in self._boiling_at(pressure)], -1)).sum(-1)
         t, y, gamma = self.equilibrium.bubble_temperature(pressure, x, start)
         t = np.where(x.max(-1) == 1.0, start, t)  # a pure component boils exactly where its own equation says
-        return Equilibrium(t, pressure, y, gamma, warnings + self._check_temperature(t, "pressure"))
+        self._check_components(t, "pressure")
+        return Equilibrium(t, pressure, y, gamma, warnings + self._check_pairs(t, x, "pressure"))
 
     def dew_point(self, pressure: Array, y: Array) -> Equilibrium:
         """Where vapor ``y`` at ``pressure`` [Pa] starts to condense."""
@@ -131,19 +131,23 @@ class Mixture:
         start = (y * np.stack([f.saturation_temperature(pressure) for f in self._boiling_at(pressure)], -1)).sum(-1)
         t, x, gamma = self.equilibrium.dew_temperature(pressure, y, start)
         t = np.where(y.max(-1) == 1.0, start, t)
-        return Equilibrium(t, pressure, x, gamma, warnings + self._check_temperature(t, "pressure"))
+        self._check_components(t, "pressure")
+        return Equilibrium(t, pressure, x, gamma, warnings + self._check_pairs(t, x, "pressure"))
 
     def bubble_pressure(self, temperature: Array, x: Array) -> Equilibrium:
         """The pressure [Pa] at which liquid ``x`` at ``temperature`` [K] starts to boil."""
-        warnings = self._check_temperature(temperature, "temperature")
+        self._check_components(temperature, "temperature")
+        warnings = self._check_pairs(temperature, x, "temperature")
         p, y, gamma = self.equilibrium.bubble_pressure(temperature, x)
         return Equilibrium(temperature, p, y, gamma, warnings + self._check_pressure(p))
 
     def dew_pressure(self, temperature: Array, y: Array) -> Equilibrium:
         """The pressure [Pa] at which vapor ``y`` at ``temperature`` [K] starts to condense."""
-        warnings = self._check_temperature(temperature, "temperature")
+        self._check_components(temperature, "temperature")
         p, x, gamma = self.equilibrium.dew_pressure(temperature, y)
-        return Equilibrium(temperature, p, x, gamma, warnings + self._check_pressure(p))
+        return Equilibrium(
+            temperature, p, x, gamma, self._check_pairs(temperature, x, "temperature") + self._check_pressure(p)
+        )
 
     def _boiling_at(self, pressure: Array) -> tuple[Fluid, ...]:
         """The components, each refused where it does not boil at ``pressure`` (the start needs its boiling point)."""
@@ -182,9 +186,8 @@ class Mixture:
             )
         ]
 
-    def _check_temperature(self, temperature: Array, field: str) -> Warnings:
-        """Refuse where a component is above its critical temperature, outside its equation's reach, or where a
-        pair forms two liquid phases; warn where a pair's parameters are used outside their range."""
+    def _check_components(self, temperature: Array, field: str) -> None:
+        """Refuse where a component is above its critical temperature or outside its equation's reach."""
         for fluid in self.components:
             low, high = fluid.temperature_limits
             name = literal(fluid.name)
@@ -198,17 +201,22 @@ class Mixture:
                 f"{{limit}}, the critical temperature of {name} (or its equation's end): above it {name} is a gas "
                 "that dissolves, and Raoult's law does not hold",
             )
+
+    def _check_pairs(self, temperature: Array, liquid: Array, field: str) -> Warnings:
+        """Refuse where the liquid (N, n) would be two liquid phases at ``temperature`` [K] (N,); warn where a pair's
+        parameters are used outside their range."""
         warnings: Warnings = list(self.notes)
+        index = {fluid.id: i for i, fluid in enumerate(self.components)}
         for binary in self.binaries:
             names = " and ".join(literal(c) for c in binary.ids)
-            split = np.interp(temperature, *_unstable(binary)) > 0.0
+            low, high = _binodal_at(binary, temperature)
+            if len(self.components) == 2:
+                share = liquid[:, index[binary.ids[0]]]
+                split = (share > low) & (share < high)
+            else:
+                split = ~np.isnan(low)
             if any_of(split):
-                raise Refusal(
-                    f"{names} form two liquid phases at this temperature over part of their composition range "
-                    f"(the {binary.judge} model predicts it); a single-liquid bubble or dew point is not "
-                    "answered there.",
-                    {field: ["two liquid phases at this temperature"]},
-                )
+                raise _two_liquids(names, binary, field, temperature, low, high, split, len(self.components))
             pair = binary.fitted
             if pair is None:
                 continue
@@ -225,21 +233,42 @@ class Mixture:
         return warnings
 
 
-_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array]] = {}
-"""The liquid-split tables by model and pair, computed once each."""
+def _two_liquids(
+    names: str, binary: Binary, field: str, temperature: Array, low: Array, high: Array, split: Array, count: int
+) -> Refusal:
+    """The refusal of the first point whose liquid splits, naming the compositions between which it does."""
+    i = int(np.flatnonzero(split)[0])
+    point = f" (point {i} of the request)" if len(split) > 1 else ""
+    where = f"about {temperature[i]:.2f} K ({temperature[i] - 273.15:.2f} degC){point}"
+    if count == 2:
+        extent = f"where the liquid holds between {low[i]:.4g} and {high[i]:.4g} mole fraction {literal(binary.ids[0])}"
+    else:
+        extent = (
+            "at some composition of the two (with three components or more, any temperature at which a pair splits "
+            "is refused: a conservative test)"
+        )
+    return Refusal(
+        f"{names} form two liquid phases at {where} {extent} (the {binary.judge} model predicts it); a "
+        "single-liquid bubble or dew point is not answered there.",
+        {field: ["two liquid phases"]},
+    )
 
 
-def _unstable(binary: Binary) -> tuple[Array, Array]:
-    """Temperatures [K] over the binary's scan, and 1 where its liquid is unstable at some composition, else 0:
-    where d2(g_mix/RT)/dx2 < 0, g_mix/RT = sum x ln(x gamma) (the spinodal; at a temperature where a binary has
-    one, it has two liquid phases over a composition range)."""
+_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array, Array]] = {}
+"""The binodal tables by model and pair, computed once each."""
+
+
+def _binodal_at(binary: Binary, temperature: Array) -> tuple[Array, Array]:
+    """Where the binary's liquid splits at each of ``temperature`` [K]: mole fractions of its first component
+    (low, high), NaN where it is one phase. From a table over the binary's scan at 1 K steps; between two steps
+    the union of their gaps; beyond the scan, its end's."""
     key = (type(binary.model).__name__, binary.ids, binary.scan)
     if key not in _SPLITS:
         temperatures = np.arange(binary.scan[0], binary.scan[1] + 0.5, 1.0)
-        x = np.stack([SPLIT_GRID, 1.0 - SPLIT_GRID], axis=-1)[None, :, :]
-        g = (x * (np.log(x) + binary.model.log_gamma(x, temperatures[:, None]))).sum(-1)
-        _SPLITS[key] = temperatures, np.any(np.diff(g, n=2, axis=-1) < 0.0, axis=-1).astype(float)
-    return _SPLITS[key]
+        _SPLITS[key] = (temperatures, *binodal(binary.model.log_gamma, temperatures))
+    temperatures, low, high = _SPLITS[key]
+    k = np.clip(np.searchsorted(temperatures, temperature), 1, len(temperatures) - 1)
+    return np.fmin(low[k - 1], low[k]), np.fmax(high[k - 1], high[k])
 
 
 Basis = Literal["mole", "mass"]

@@ -82,7 +82,7 @@ def test_csv_answer_has_a_column_per_component(client) -> None:
         ("components=ethanol,ammonia&fractions=0.5,0.5&pressure=100", 422, "components"),
         ("components=ethylene-glycol,water&fractions=0.5,0.5&pressure=100", 422, "components"),
         ("components=acetone,n-hexane&fractions=0.5,0.5&pressure=100&model=nrtl", 422, "components"),
-        ("components=water,1-butanol&fractions=0.5,0.5&pressure=100", 422, "pressure"),
+        ("components=water,1-butanol&fractions=0.8,0.2&pressure=100", 422, "pressure"),
         ("components=benzene,toluene&fractions=0.5,0.5&pressure=1200", 422, "pressure"),
         ("components=methanol,water&fractions=0.5,0.5&temperature=250", 422, "temperature"),
         ("components=ethanol,water&fractions=0.5,0.5&pressure=100&model=margules", 400, "model"),
@@ -182,6 +182,6 @@ def test_fitted_models_on_request(client, model: str, method: str) -> None:
     assert body["bubble_point"]["value"] == pytest.approx(86.7, abs=0.5)
     assert body["vapor_composition"]["ethanol"]["value"] == pytest.approx(0.438, abs=0.02)
     two_liquids = client.get(
-        f"/v1/bubble-point?components=water,1-butanol&fractions=0.5,0.5&pressure=101.325&model={model}"
+        f"/v1/bubble-point?components=water,1-butanol&fractions=0.8,0.2&pressure=101.325&model={model}"
     )
     assert "two liquid phases" in problem(two_liquids, 422)["detail"]
