@@ -114,6 +114,8 @@ class Mixture:
                 model.append(("UNIQUAC volume r and area q of each component", self.pair_set.sizes_source))
         elif self.group_table:
             model.append((self.group_table.method, self.group_table.source))
+        else:
+            model.append(("Raoult's law (an ideal solution)", "asked for by the request: no activity model"))
         return [*model, *((f.method, f.source) for f in self.components)]
 
     def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:

@@ -14,6 +14,10 @@ from service.fluids.limits import Refusal
 from service.fluids.mixture import MODEL_NAMES, Binary, Mixture, Model
 from service.fluids.pairs import PairModel, PairSet
 
+IDEAL_NOTE = (
+    "An ideal solution (Raoult's law), as the request asked: every activity coefficient is 1. Real mixtures depart "
+    "from it, some by several kelvin; it is close only for liquids known to mix ideally."
+)
 SPLIT_MARGIN = 20.0
 """How far [K] beyond a pair's stated range its liquid is tested for splitting (the answers may reach there)."""
 
@@ -40,7 +44,7 @@ def mixture(
                 {"components": [f"{fluid.id}: its vapor associates"]},
             )
     if model == "ideal":
-        return Mixture(tuple(components), "ideal", None)
+        return Mixture(tuple(components), "ideal", None, notes=(IDEAL_NOTE,))
     fitted: PairModel = "nrtl" if model == "auto" else model  # type: ignore[assignment]
     if fitted in pair_sets:
         chosen = pair_sets[fitted]

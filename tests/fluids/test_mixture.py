@@ -83,3 +83,13 @@ def test_a_supercritical_component_is_refused(mixture_of: MixtureOf) -> None:
     # Methanol's critical temperature is 512.5 K: at 520 K it cannot be a liquid (CRC Handbook, recalled).
     with pytest.raises(OutOfRange, match="temperature"):
         mixture_of("methanol", "water").bubble_pressure(np.array([520.0]), binary(0.5))
+
+
+def test_glycol_coolant_by_raoults_law(mixture_of: MixtureOf) -> None:
+    # 50 wt% ethylene glycol in water boils near 107 degC at 1 atm (the value; coolant tables give about
+    # 107 degC, recalled from memory). No fitted pair is at hand and the group methods are refused for glycols with
+    # water; Raoult's law, asked for, lands on the published point: the pair is close to ideal there.
+    mix = mixture_of("ethylene-glycol", "water", model="ideal")
+    moles = np.array([0.5, 0.5]) / [fluid.molar_mass for fluid in mix.components]
+    found = mix.bubble_point(ATMOSPHERE, (moles / moles.sum())[None, :])
+    assert found.temperature[0] - 273.15 == pytest.approx(107.0, abs=1.0)

@@ -63,3 +63,15 @@ def test_an_associating_acid_is_refused(mixture_of: MixtureOf) -> None:
     for model in ("auto", "ideal"):
         with pytest.raises(Refusal, match="dimerises in the vapor"):
             mixture_of("ethanol", "acetic-acid", model=model)
+
+
+@pytest.mark.parametrize("model", ["auto", "unifac", "unifac-dortmund"])
+def test_glycol_with_water_is_refused_with_the_way_to_ask(mixture_of: MixtureOf, model: Model) -> None:
+    with pytest.raises(Refusal, match="model=ideal"):
+        mixture_of("ethylene-glycol", "water", model=model)
+
+
+def test_an_ideal_solution_says_so(mixture_of: MixtureOf) -> None:
+    mix = mixture_of("benzene", "toluene", model="ideal")
+    assert any("as the request asked" in str(w) for w in mix.bubble_point(ATMOSPHERE, EQUIMOLAR).warnings)
+    assert mix.citations[0][0] == "Raoult's law (an ideal solution)"

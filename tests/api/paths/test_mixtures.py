@@ -185,3 +185,12 @@ def test_fitted_models_on_request(client, model: str, method: str) -> None:
         f"/v1/bubble-point?components=water,1-butanol&fractions=0.8,0.2&pressure=101.325&model={model}"
     )
     assert "two liquid phases" in problem(two_liquids, 422)["detail"]
+
+
+def test_the_readme_coolant_example(client) -> None:
+    # README, the CIP heater's coolant loop: 50 wt% glycol under a 100 kPa gauge cap at 1,420 m.
+    query = "components=ethylene-glycol,water&fractions=0.5,0.5&basis=mass&gauge_pressure=100&elevation=1420&digits=4"
+    body = client.get(f"/v1/bubble-point?{query}&model=ideal").get_json()
+    assert (body["pressure"]["value"], body["bubble_point"]["value"]) == (185.4, 125.7)
+    assert any("as the request asked" in w for w in body["warnings"])
+    assert "model=ideal" in problem(client.get(f"/v1/bubble-point?{query}"), 422)["detail"]
