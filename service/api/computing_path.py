@@ -139,9 +139,10 @@ class ComputingPath:
     example: dict[str, Any]
     body_options: Mapping[str, fields.Field] = field(default_factory=dict)
     """Options that take another field in a POST body than in the query string."""
-    row_options: tuple[str, ...] = ()
+    row_options: Mapping[str, str] = field(default_factory=dict)
     """Options that may give one row per point (a list of lists in a POST body, loaded as a 2-D array): their
-    rows broadcast with the input arrays as one more array would."""
+    rows broadcast with the input arrays as one more array would. Each names the option whose comma-separated
+    names label its columns in a CSV body (``fractions`` by ``components``: ``fractions.ethanol``)."""
     one_point: bool = False
     """Whether the path answers one point per request (its POST then takes single values only)."""
     errors: tuple[int, ...] = (400, 404, 422)
@@ -256,7 +257,8 @@ class ComputingPath:
         args = query_args()
         requested = self._loaders["format"].load({"format": args.pop("format")})["format"] if "format" in args else None
         if request.mimetype == "text/csv":
-            sent = csv_table(request.get_data(), (*self.inputs, "tag"))
+            labels = {name: (key, _labels(args.get(key))) for name, key in self.row_options.items()}
+            sent = csv_table(request.get_data(), (*self.inputs, "tag"), labels)
         elif request.is_json:
             sent = json_object(request.get_data())
         else:
@@ -357,3 +359,8 @@ def _format_field(*formats: str) -> fields.String:
             "description": f"Answer as {' or '.join(formats)}; without it the Accept header decides (JSON by default)."
         },
     )
+
+
+def _labels(text: str | None) -> list[str] | None:
+    """The comma-separated names of a query parameter, stripped; None where it is absent."""
+    return None if text is None else [name.strip() for name in text.split(",")]

@@ -136,7 +136,9 @@ GUARDED = (401, 414)
 NOT_MODIFIED = {"description": "Not modified: the answer has the ETag sent in If-None-Match."}
 _CSV_BODY = (
     "A header row naming input quantities, each optionally with its unit (`gauge_pressure [kPa]`), then one "
-    "row of numbers per point. Options and single values go in the query string."
+    "row of numbers per point. Options and single values go in the query string. A mixture's `fractions` may "
+    "instead be columns, one per component named in the query string: `fractions.ethanol,fractions.water` for "
+    "`components=ethanol,water`, without units (`basis` says which fractions)."
 )
 
 

@@ -11,7 +11,7 @@ from __future__ import annotations
 import csv
 import io
 import json
-from collections.abc import Collection
+from collections.abc import Collection, Mapping
 from typing import Any
 
 import numpy as np
@@ -81,42 +81,82 @@ def _key_count(value: Any) -> int:
     return 0
 
 
-def csv_table(raw: bytes, columns: Collection[str]) -> dict[str, Any]:
+def csv_table(
+    raw: bytes, columns: Collection[str], rows: Mapping[str, tuple[str, list[str] | None]] | None = None
+) -> dict[str, Any]:
     """A CSV body as ``{name: {"value": array, "unit": code or None}}`` and ``{"tag": [labels]}``.
 
     The header names the columns, each one of ``columns``, optionally with a unit:
     ``gauge_pressure [kPa]``. Every row has as many cells as the header. Rows end with LF, CRLF or
     a bare CR (spreadsheets write all three). Numbers are parsed in one call; only when that fails
     is the table read cell by cell, to name the first bad cell by row and column.
+
+    ``rows`` names the options given one row of numbers per point, ``{option: (labelled by, labels)}``: their
+    columns are ``option.label``, one per label (``fractions.ethanol`` for ``components=ethanol,...``), and they
+    come back as ``{option: 2-D array}``, columns in the labels' order. ``labels`` None: the query string did
+    not give them.
     """
     try:
         text = raw.removeprefix(BOM).decode("utf-8")
     except UnicodeDecodeError:
         raise invalid("body", "a CSV body must be UTF-8 text") from None
-    header, _, rows = text.replace("\r\n", "\n").replace("\r", "\n").strip().partition("\n")
-    if not rows.strip():
+    header, _, body = text.replace("\r\n", "\n").replace("\r", "\n").strip().partition("\n")
+    if not body.strip():
         raise invalid("body", "a CSV body has a header row and at least one row below it")
     names, units = [], []
     for cell in next(csv.reader([header])):
         name, _, unit = cell.partition("[")
         names.append(name.strip())
         units.append(unit.rstrip("] ") or None)
+    grouped = rows or {}
     for name in names:
-        if name not in columns:
-            raise invalid(name, f"not an input of this path; columns may be {', '.join(columns)}")
+        if name not in columns and name.partition(".")[0] not in grouped:
+            shown = [*columns, *(f"{option}.<one of {key}>" for option, (key, _) in grouped.items())]
+            raise invalid(name, f"not an input of this path; columns may be {', '.join(shown)}")
     if len(set(names)) != len(names):
         raise invalid("body", "a CSV header names each column once")
     labels = [i for i, n in enumerate(names) if n in TEXT_COLUMNS]
-    if labels or '"' in rows:  # labels, or quoted cells: read by the csv module
-        count, cells, text_cells = _quoted_cells(rows, len(names), labels)
+    if labels or '"' in body:  # labels, or quoted cells: read by the csv module
+        count, cells, text_cells = _quoted_cells(body, len(names), labels)
     else:
-        count, cells, text_cells = rows.count("\n") + 1, _number_cells(rows, len(names)), {}
-    table = _numbers(cells, count, rows, names, labels)
+        count, cells, text_cells = body.count("\n") + 1, _number_cells(body, len(names)), {}
+    table = _numbers(cells, count, body, names, labels)
     numeric = [i for i in range(len(names)) if i not in labels]
     out: dict[str, Any] = {names[i]: text_cells[i] for i in labels}
     for column, i in enumerate(numeric):
-        out[names[i]] = {"value": table[:, column].copy(), "unit": units[i]}
+        if names[i] in columns:
+            out[names[i]] = {"value": table[:, column].copy(), "unit": units[i]}
+    for i, name in enumerate(names):
+        if name not in columns and units[i]:
+            raise invalid(name, f"{name.partition('.')[0]} columns take no unit: the basis option says what they are")
+    for option, (key, wanted) in grouped.items():
+        found = {
+            names[i].partition(".")[2]: column for column, i in enumerate(numeric) if names[i].startswith(f"{option}.")
+        }
+        if found:
+            out[option] = _labelled_columns(table, option, key, wanted, found)
     return out
+
+
+def _labelled_columns(
+    table: NDArray[np.float64], option: str, key: str, wanted: list[str] | None, found: dict[str, int]
+) -> NDArray[np.float64]:
+    """The columns ``option.<label>`` of ``table`` as one 2-D array, in the order of ``wanted``; 400 where the query
+    string does not give the labels, or the columns do not name each of them once."""
+    if wanted is None:
+        raise invalid(key, f"give {key} in the query string: the CSV columns {option}.<name> follow its order")
+    missing, extra = [w for w in wanted if w not in found], [f for f in found if f not in wanted]
+    if missing or extra:
+        raise invalid(
+            option,
+            f"the CSV needs one column {option}.<name> for each of {key} ({', '.join(wanted)}); "
+            + "; ".join(
+                filter(
+                    None, [missing and f"missing: {', '.join(missing)}", extra and f"not in {key}: {', '.join(extra)}"]
+                )
+            ),
+        )
+    return table[:, [found[w] for w in wanted]]
 
 
 def _number_cells(rows: str, width: int) -> str:

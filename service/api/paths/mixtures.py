@@ -51,6 +51,8 @@ class FractionsField(fields.Field):
     def _deserialize(self, value: Any, attr: str | None, data: Any, **kwargs: Any) -> np.ndarray:
         if isinstance(value, str):
             return np.array([parse_number(text.strip()) for text in value.split(",")])
+        if isinstance(value, np.ndarray) and value.ndim == 2:  # a CSV body's columns
+            return _rows(value)
         if isinstance(value, list) and value and isinstance(value[0], list):
             return _rows(value)
         array = finite_numbers(value)
@@ -205,7 +207,7 @@ for _operation in (
         "pressure) and the composition of the first vapor. " + _COMMON,
         inputs={**PRESSURE_INPUTS, "temperature": TEMPERATURE},
         options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
-        row_options=("fractions",),
+        row_options={"fractions": "components"},
         dimensions=("pressure", "temperature", "length"),
         response=mixture_schemas.BubblePointAnswer,
         compute=bubble_point,
@@ -219,7 +221,7 @@ for _operation in (
         "and the composition of the first liquid. " + _COMMON,
         inputs={**PRESSURE_INPUTS, "temperature": TEMPERATURE},
         options={"components": COMPONENTS, "fractions": FRACTIONS, "basis": BASIS, "model": MODEL},
-        row_options=("fractions",),
+        row_options={"fractions": "components"},
         dimensions=("pressure", "temperature", "length"),
         response=mixture_schemas.DewPointAnswer,
         compute=dew_point,

@@ -66,6 +66,47 @@ def test_csv_answer_has_a_column_per_component(client) -> None:
     assert len(rows) == 2 and "vapor_composition.ethanol [mole fraction]" in rows[0]
 
 
+def test_csv_body_gives_a_composition_per_row(client) -> None:
+    # The columns fractions.<component> follow components in the query string; each row is one point and
+    # answers as the same point sent as JSON does.
+    table = "pressure,fractions.water,fractions.ethanol\n101.325,0.903,0.097\n85,0.5,0.5\n"
+    r = client.post("/v1/bubble-point?components=ethanol,water", data=table, content_type="text/csv")
+    as_json = client.post(
+        "/v1/bubble-point",
+        json={"components": ["ethanol", "water"], "fractions": [[0.097, 0.903], [0.5, 0.5]], "pressure": [101.325, 85]},
+    )
+    assert r.get_json()["bubble_point"] == as_json.get_json()["bubble_point"]
+
+
+@pytest.mark.parametrize(
+    ("query", "table", "field"),
+    [
+        ("", "pressure,fractions.ethanol,fractions.water\n101,0.5,0.5\n", "components"),
+        ("?components=ethanol,water", "pressure,fractions.ethanol\n101,1\n", "fractions"),
+        (
+            "?components=ethanol,water",
+            "pressure,fractions.ethanol,fractions.water,fractions.x\n101,0.5,0.5,0\n",
+            "fractions",
+        ),
+        ("?components=ethanol,water", "pressure,fraction.ethanol,fraction.water\n101,0.5,0.5\n", "fraction.ethanol"),
+        # A unit on a fraction column would say nothing the basis does not, or contradict it: refused.
+        (
+            "?components=ethanol,water",
+            "pressure,fractions.ethanol [mass fraction],fractions.water\n101,0.5,0.5\n",
+            "fractions.ethanol",
+        ),
+        (
+            "?components=ethanol,water&fractions=0.5,0.5",
+            "pressure,fractions.ethanol,fractions.water\n101,0.5,0.5\n",
+            "fractions",
+        ),
+    ],
+)
+def test_csv_body_fraction_columns_refused(client, query: str, table: str, field: str) -> None:
+    r = client.post(f"/v1/bubble-point{query}", data=table, content_type="text/csv")
+    assert field in problem(r, 400)["errors"]
+
+
 @pytest.mark.parametrize(
     ("query", "status", "field"),
     [
