@@ -116,7 +116,10 @@ class Mixture:
             model.append((self.group_table.method, self.group_table.source))
         else:
             model.append(("Raoult's law (an ideal solution)", "asked for by the request: no activity model"))
-        return [*model, *((f.method, f.source) for f in self.components)]
+        shared: dict[tuple[str, str], list[str]] = {}  # components citing the same equation and source, once
+        for fluid in self.components:
+            shared.setdefault((fluid.method, fluid.source), []).append(fluid.name)
+        return [*model, *((f"{', '.join(names)}: {method}", source) for (method, source), names in shared.items())]
 
     def bubble_point(self, pressure: Array, x: Array) -> Equilibrium:
         """Where liquid ``x`` at ``pressure`` [Pa] starts to boil."""

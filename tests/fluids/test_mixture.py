@@ -93,3 +93,11 @@ def test_glycol_coolant_by_raoults_law(mixture_of: MixtureOf) -> None:
     moles = np.array([0.5, 0.5]) / [fluid.molar_mass for fluid in mix.components]
     found = mix.bubble_point(ATMOSPHERE, (moles / moles.sum())[None, :])
     assert found.temperature[0] - 273.15 == pytest.approx(107.0, abs=1.0)
+
+
+def test_components_sharing_an_equation_are_cited_once(mixture_of: MixtureOf) -> None:
+    methods = [method for method, _ in mixture_of("methanol", "ethanol", "water").citations]
+    assert methods[1:] == [
+        "Methanol, Ethanol: Wagner 2.5-5 equation (PPDS form)",
+        "Water: IAPWS 1992 saturation-pressure equation (Wagner and Pruss)",
+    ]
