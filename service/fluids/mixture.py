@@ -259,8 +259,9 @@ def _two_liquids(
     )
 
 
-_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array, Array]] = {}
-"""The binodal tables by model and pair, computed once each."""
+_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array, Array, NDArray[np.bool_]]] = {}
+"""The binodal tables by model and pair: temperatures at 1 K steps over the scan, low, high, and which rows are
+computed (each the first time an answer falls next to it: a single answer computes two rows, not the scan)."""
 
 
 def _binodal_at(binary: Binary, temperature: Array) -> tuple[Array, Array]:
@@ -270,9 +271,15 @@ def _binodal_at(binary: Binary, temperature: Array) -> tuple[Array, Array]:
     key = (type(binary.model).__name__, binary.ids, binary.scan)
     if key not in _SPLITS:
         temperatures = np.arange(binary.scan[0], binary.scan[1] + 0.5, 1.0)
-        _SPLITS[key] = (temperatures, *binodal(binary.model.log_gamma, temperatures))
-    temperatures, low, high = _SPLITS[key]
+        nothing = np.full(len(temperatures), np.nan)
+        _SPLITS[key] = (temperatures, nothing, nothing.copy(), np.zeros(len(temperatures), dtype=bool))
+    temperatures, low, high, done = _SPLITS[key]
     k = np.clip(np.searchsorted(temperatures, temperature), 1, len(temperatures) - 1)
+    rows = np.union1d(k - 1, k)
+    missing = rows[~done[rows]]
+    if missing.size:
+        low[missing], high[missing] = binodal(binary.model.log_gamma, temperatures[missing])
+        done[missing] = True
     return np.fmin(low[k - 1], low[k]), np.fmax(high[k - 1], high[k])
 
 
