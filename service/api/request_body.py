@@ -110,8 +110,9 @@ def csv_table(
         units.append(unit.rstrip("] ") or None)
     grouped = rows or {}
     for name in names:
-        if name not in columns and name.partition(".")[0] not in grouped:
-            shown = [*columns, *(f"{option}.<one of {key}>" for option, (key, _) in grouped.items())]
+        option, dot, label = name.partition(".")
+        if name not in columns and not (dot and label and option in grouped):
+            shown = [*columns, *(f"{grouped_name}.<one of {key}>" for grouped_name, (key, _) in grouped.items())]
             raise invalid(name, f"not an input of this path; columns may be {', '.join(shown)}")
     if len(set(names)) != len(names):
         raise invalid("body", "a CSV header names each column once")
@@ -145,18 +146,21 @@ def _labelled_columns(
     string does not give the labels, or the columns do not name each of them once."""
     if wanted is None:
         raise invalid(key, f"give {key} in the query string: the CSV columns {option}.<name> follow its order")
-    missing, extra = [w for w in wanted if w not in found], [f for f in found if f not in wanted]
+    named = set(wanted)
+    missing, extra = [w for w in wanted if w not in found], [f for f in found if f not in named]
     if missing or extra:
+        wrong = [f"missing: {_few(missing)}" if missing else "", f"not in {key}: {_few(extra)}" if extra else ""]
         raise invalid(
             option,
-            f"the CSV needs one column {option}.<name> for each of {key} ({', '.join(wanted)}); "
-            + "; ".join(
-                filter(
-                    None, [missing and f"missing: {', '.join(missing)}", extra and f"not in {key}: {', '.join(extra)}"]
-                )
-            ),
+            f"the CSV needs one column {option}.<name> for each of {key} ({_few(wanted)}); "
+            + "; ".join(filter(None, wrong)),
         )
     return table[:, [found[w] for w in wanted]]
+
+
+def _few(names: list[str]) -> str:
+    """Up to five names, and how many more."""
+    return ", ".join(names[:5]) + (f" and {len(names) - 5} more" if len(names) > 5 else "")
 
 
 def _number_cells(rows: str, width: int) -> str:

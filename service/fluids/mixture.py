@@ -23,9 +23,9 @@ from service.fluids.limits import Refusal, any_of, refuse_outside
 from service.fluids.pairs import Activity, FittedPair, PairSet
 from service.fluids.questions import Answer
 from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
+from service.fluids.two_liquids import Judge, check_two_liquids
 from service.physics.activity.unifac import Unifac
 from service.physics.equilibrium import ModifiedRaoult
-from service.physics.liquid_split import binodal
 
 Model = Literal["auto", "nrtl", "wilson", "uniquac", "unifac", "unifac-dortmund", "ideal"]
 MODEL_NAMES = {
@@ -57,15 +57,12 @@ class Equilibrium:
 
 @dataclass(frozen=True)
 class Binary:
-    """Two components of a mixture: ``model`` tests their liquid for two phases (the mixture's own model, or
-    another where it cannot describe them: Wilson's), named ``judge``; ``fitted``: the pair the answer uses, whose
+    """Two components of a mixture, the ``judges`` that test their liquid for two phases (a split is refused only
+    where every judge predicts it, and cautioned where some do), and ``fitted``: the pair the answer uses, whose
     stated range [K] warns."""
 
     ids: tuple[str, str]
-    model: Activity | Unifac
-    scan: tuple[float, float]
-    """The temperatures [K] over which the liquid is tested for splitting."""
-    judge: str
+    judges: tuple[Judge, ...]
     fitted: FittedPair | None = None
 
 
@@ -211,17 +208,10 @@ class Mixture:
         """Refuse where the liquid (N, n) would be two liquid phases at ``temperature`` [K] (N,); warn where a pair's
         parameters are used outside their range."""
         warnings: Warnings = list(self.notes)
-        index = {fluid.id: i for i, fluid in enumerate(self.components)}
+        ids = [fluid.id for fluid in self.components]
         for binary in self.binaries:
             names = " and ".join(literal(c) for c in binary.ids)
-            low, high = _binodal_at(binary, temperature)
-            if len(self.components) == 2:
-                share = liquid[:, index[binary.ids[0]]]
-                split = (share > low) & (share < high)
-            else:
-                split = ~np.isnan(low)
-            if any_of(split):
-                raise _two_liquids(names, binary, field, temperature, low, high, split, len(self.components))
+            warnings += check_two_liquids(binary.ids, binary.judges, ids, liquid, temperature, field)
             pair = binary.fitted
             if pair is None:
                 continue
@@ -236,51 +226,6 @@ class Mixture:
                     )
                 )
         return warnings
-
-
-def _two_liquids(
-    names: str, binary: Binary, field: str, temperature: Array, low: Array, high: Array, split: Array, count: int
-) -> Refusal:
-    """The refusal of the first point whose liquid splits, naming the compositions between which it does."""
-    i = int(np.flatnonzero(split)[0])
-    point = f" (point {i} of the request)" if len(split) > 1 else ""
-    where = f"about {temperature[i]:.2f} K ({temperature[i] - 273.15:.2f} degC){point}"
-    if count == 2:
-        extent = f"where the liquid holds between {low[i]:.4g} and {high[i]:.4g} mole fraction {literal(binary.ids[0])}"
-    else:
-        extent = (
-            "at some composition of the two (with three components or more, any temperature at which a pair splits "
-            "is refused: a conservative test)"
-        )
-    return Refusal(
-        f"{names} form two liquid phases at {where} {extent} (the {binary.judge} model predicts it); a "
-        "single-liquid bubble or dew point is not answered there.",
-        {field: ["two liquid phases"]},
-    )
-
-
-_SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array, Array, NDArray[np.bool_]]] = {}
-"""The binodal tables by model and pair: temperatures at 1 K steps over the scan, low, high, and which rows are
-computed (each the first time an answer falls next to it: a single answer computes two rows, not the scan)."""
-
-
-def _binodal_at(binary: Binary, temperature: Array) -> tuple[Array, Array]:
-    """Where the binary's liquid splits at each of ``temperature`` [K]: mole fractions of its first component
-    (low, high), NaN where it is one phase. From a table over the binary's scan at 1 K steps; between two steps
-    the union of their gaps; beyond the scan, its end's."""
-    key = (type(binary.model).__name__, binary.ids, binary.scan)
-    if key not in _SPLITS:
-        temperatures = np.arange(binary.scan[0], binary.scan[1] + 0.5, 1.0)
-        nothing = np.full(len(temperatures), np.nan)
-        _SPLITS[key] = (temperatures, nothing, nothing.copy(), np.zeros(len(temperatures), dtype=bool))
-    temperatures, low, high, done = _SPLITS[key]
-    k = np.clip(np.searchsorted(temperatures, temperature), 1, len(temperatures) - 1)
-    rows = np.union1d(k - 1, k)
-    missing = rows[~done[rows]]
-    if missing.size:
-        low[missing], high[missing] = binodal(binary.model.log_gamma, temperatures[missing])
-        done[missing] = True
-    return np.fmin(low[k - 1], low[k]), np.fmax(high[k - 1], high[k])
 
 
 Basis = Literal["mole", "mass"]

@@ -8,11 +8,13 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 
+from service.fluids.cautions import literal
 from service.fluids.fluid import Fluid
 from service.fluids.groups import GroupTable
 from service.fluids.limits import Refusal
 from service.fluids.mixture import MODEL_NAMES, Binary, Mixture, Model
 from service.fluids.pairs import PairModel, PairSet
+from service.fluids.two_liquids import Judge
 
 IDEAL_NOTE = (
     "An ideal solution (Raoult's law), as the request asked: every activity coefficient is 1. Real mixtures depart "
@@ -44,7 +46,7 @@ def mixture(
                 {"components": [f"{fluid.id}: its vapor associates"]},
             )
     if model == "ideal":
-        return Mixture(tuple(components), "ideal", None, notes=(IDEAL_NOTE,))
+        return _ideal_mixture(tuple(components), tables)
     fitted: PairModel = "nrtl" if model == "auto" else model  # type: ignore[assignment]
     if fitted in pair_sets:
         chosen = pair_sets[fitted]
@@ -61,18 +63,57 @@ def mixture(
             f"No fitted NRTL parameters for {', '.join(missing)}: the answer is the UNIFAC group-contribution "
             "prediction, typically within a few kelvin of measured bubble points, and less sure than a fitted pair.",
         )
-        return _group_mixture(tuple(components), tables["unifac"], notes)
-    return _group_mixture(tuple(components), tables[model], ())
+        return _group_mixture(tuple(components), tables["unifac"], notes, tables)
+    return _group_mixture(tuple(components), tables[model], (), tables)
 
 
-def _group_mixture(components: tuple[Fluid, ...], table: GroupTable, notes: tuple[str, ...]) -> Mixture:
-    scan = _scan(components)
+def _group_mixture(
+    components: tuple[Fluid, ...], table: GroupTable, notes: tuple[str, ...], tables: Mapping[str, GroupTable]
+) -> Mixture:
+    activity = table.model(components)
     binaries = tuple(
-        Binary((a.id, b.id), table.model([a, b]), scan, MODEL_NAMES[table.form])
+        Binary((a.id, b.id), _judges(a, b, tables, _group_judge(table, a, b)))
         for i, a in enumerate(components)
         for b in components[i + 1 :]
     )
-    return Mixture(components, table.form, table.model(components), binaries, notes, table)  # type: ignore[arg-type]
+    return Mixture(components, table.form, activity, binaries, notes, table)  # type: ignore[arg-type]
+
+
+def _ideal_mixture(components: tuple[Fluid, ...], tables: Mapping[str, GroupTable]) -> Mixture:
+    binaries = tuple(
+        Binary((a.id, b.id), _judges(a, b, tables, None)) for i, a in enumerate(components) for b in components[i + 1 :]
+    )
+    return Mixture(components, "ideal", None, binaries, (IDEAL_NOTE, *_untested(binaries)))
+
+
+def _group_judge(table: GroupTable, first: Fluid, second: Fluid) -> Judge:
+    return Judge(MODEL_NAMES[table.form], table.model([first, second]), _scan((first, second)))
+
+
+def _judges(first: Fluid, second: Fluid, tables: Mapping[str, GroupTable], own: Judge | None) -> tuple[Judge, ...]:
+    """``own`` (else original UNIFAC, for a model that cannot show two liquids), and modified UNIFAC (Dortmund)
+    beside it, where each has the pair's groups. A split is refused only where every judge predicts it: sets
+    fitted to vapor-liquid data, and original UNIFAC, predict splits that do not exist (1-propanol and water, by
+    ChemSep's UNIQUAC set), and Dortmund's parameters were fitted to liquid-liquid data too (Weidlich and
+    Gmehling 1987)."""
+    found = [own] if own else []
+    for form in ("unifac", "unifac-dortmund"):
+        if (own is None or form == "unifac-dortmund") and not any(j.name == MODEL_NAMES[form] for j in found):
+            try:
+                found.append(_group_judge(tables[form], first, second))
+            except Refusal:
+                continue
+    return tuple(found)
+
+
+def _untested(binaries: tuple[Binary, ...]) -> tuple[str, ...]:
+    """A caution per pair that no model at hand tests for two liquid phases."""
+    return tuple(
+        f"No model at hand tests {' and '.join(literal(i) for i in b.ids)} for two liquid phases: the answer "
+        "assumes one liquid."
+        for b in binaries
+        if not b.judges
+    )
 
 
 def _scan(components: Sequence[Fluid]) -> tuple[float, float]:
@@ -90,7 +131,8 @@ def _fitted_mixture(
     binaries = tuple(
         _binary(chosen, a, b, pair_sets, tables) for i, a in enumerate(components) for b in components[i + 1 :]
     )
-    return Mixture(components, chosen.model, chosen.activity([f.id for f in components]), binaries, pair_set=chosen)
+    activity = chosen.activity([f.id for f in components])
+    return Mixture(components, chosen.model, activity, binaries, _untested(binaries), pair_set=chosen)
 
 
 def _binary(
@@ -100,22 +142,15 @@ def _binary(
     pair_sets: Mapping[PairModel, PairSet],
     tables: Mapping[str, GroupTable],
 ) -> Binary:
-    """The pair of ``first`` and ``second`` the answer uses, with the model that tests it for two liquid phases:
-    the pair's own, or for Wilson (which cannot describe them) the same pair's NRTL or UNIQUAC set, else UNIFAC."""
-    pair = chosen.pairs[frozenset((first.id, second.id))]
-    judges = (chosen,) if chosen.model != "wilson" else (pair_sets.get("nrtl"), pair_sets.get("uniquac"))
-    for judge in judges:
-        other = judge.pairs.get(frozenset(pair.components)) if judge else None
+    """The pair of ``first`` and ``second`` the answer uses, with the judges of two liquid phases: the pair's own
+    set, or for Wilson (which cannot show them) the same pair's NRTL or UNIQUAC set, else UNIFAC; and Dortmund."""
+    ids = (first.id, second.id)
+    pair = chosen.pairs[frozenset(ids)]
+    own = None
+    for judge in (chosen,) if chosen.model != "wilson" else (pair_sets.get("nrtl"), pair_sets.get("uniquac")):
+        other = judge.pairs.get(frozenset(ids)) if judge else None
         if judge and other:
             scan = (other.t_min - SPLIT_MARGIN, other.t_max + SPLIT_MARGIN)
-            return Binary(other.components, judge.activity(other.components), scan, MODEL_NAMES[judge.model], pair)
-    try:
-        unifac = tables["unifac"].model([first, second])
-    except Refusal as exc:
-        raise Refusal(
-            f"Wilson's equation cannot show two liquid phases, and {first.name} and {second.name} have neither an "
-            f"NRTL nor a UNIQUAC pair nor a UNIFAC prediction to test them with ({exc.message}). Ask for another "
-            "model.",
-            {"components": [f"{first.id}/{second.id}: no test for two liquid phases"]},
-        ) from exc
-    return Binary((first.id, second.id), unifac, _scan((first, second)), MODEL_NAMES["unifac"], pair)
+            own = Judge(MODEL_NAMES[judge.model], judge.activity(ids), scan)
+            break
+    return Binary(ids, _judges(first, second, tables, own), pair)

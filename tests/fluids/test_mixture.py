@@ -5,7 +5,7 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from service.fluids.limits import OutOfRange, Refusal
+from service.fluids.limits import OutOfRange
 from service.fluids.mixture import Model
 from tests.conftest import MixtureOf
 
@@ -51,25 +51,6 @@ def test_dew_point_of_the_bubble_vapor(mixture_of: MixtureOf) -> None:
     np.testing.assert_allclose(dew.temperature, bubble.temperature, atol=1e-8)
     np.testing.assert_allclose(dew.other, x, atol=1e-8)
     np.testing.assert_allclose(mix.bubble_pressure(bubble.temperature, x).pressure, p, rtol=1e-9)
-
-
-@pytest.mark.parametrize(("model", "judge"), [("auto", "NRTL"), ("uniquac", "UNIQUAC"), ("wilson", "NRTL")])
-def test_two_liquid_phases_are_refused(mixture_of: MixtureOf, model: Model, judge: str) -> None:
-    # Water and 1-butanol split into two liquids near their boiling points, from about 2 mol% butanol to about
-    # 60 mol% water (the measured mutual solubilities near 90 degC; a fact of the trade, recalled from memory).
-    # Wilson's equation cannot show it (Wilson 1964, the form of its G^E): the pair's NRTL set judges instead.
-    with pytest.raises(Refusal, match=f"two liquid phases.*mole fraction water.*the {judge} model predicts it"):
-        mixture_of("water", "1-butanol", model=model).bubble_point(ATMOSPHERE, binary(0.8))
-
-
-def test_a_liquid_outside_the_gap_is_answered(mixture_of: MixtureOf) -> None:
-    # Half a mole percent of butanol in water, and the butanol-rich liquid, are one phase at their bubble points
-    # (same solubilities): answered, and the array's split point is named by its index.
-    mix = mixture_of("water", "1-butanol")
-    found = mix.bubble_point(np.full(2, 101_325.0), np.array([[0.995, 0.005], [0.3, 0.7]]))
-    assert np.all(found.temperature > 273.15 + 90.0)
-    with pytest.raises(Refusal, match=r"point 1 of the request"):
-        mix.bubble_point(np.full(2, 101_325.0), np.array([[0.995, 0.005], [0.8, 0.2]]))
 
 
 def test_above_1_mpa_is_refused_and_above_half_warned(mixture_of: MixtureOf) -> None:

@@ -36,13 +36,6 @@ def test_never_an_ideal_solution_unasked(mixture_of: MixtureOf) -> None:
         mixture_of("ethylene-glycol", "water")
 
 
-def test_a_wilson_pair_without_another_set_is_judged_by_unifac(mixture_of: MixtureOf) -> None:
-    # 1,2-dichloroethane and ethylbenzene have a Wilson set only: UNIFAC tests their liquid, and finds one phase.
-    mix = mixture_of("1-2-dichloroethane", "ethylbenzene", model="wilson")
-    assert [b.judge for b in mix.binaries] == ["UNIFAC"]
-    assert mix.bubble_point(ATMOSPHERE, EQUIMOLAR).temperature[0] > 273.15 + 83.5  # above 1,2-DCE's own 83.5 degC
-
-
 @pytest.mark.parametrize("model", ["wilson", "uniquac"])
 def test_fitted_models_cite_their_sets(mixture_of: MixtureOf, model: Model) -> None:
     methods = [method for method, _ in mixture_of("ethanol", "water", model=model).citations]

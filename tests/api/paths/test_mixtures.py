@@ -89,6 +89,9 @@ def test_csv_body_gives_a_composition_per_row(client) -> None:
             "fractions",
         ),
         ("?components=ethanol,water", "pressure,fraction.ethanol,fraction.water\n101,0.5,0.5\n", "fraction.ethanol"),
+        # A bare fractions column (one number per row: which component's?) is refused, not dropped.
+        ("?components=ethanol,water&fractions=0.3,0.7", "pressure,fractions\n101,0.9\n", "fractions"),
+        ("?components=ethanol,water", "pressure,fractions.,fractions.water\n101,0.5,0.5\n", "fractions."),
         # A unit on a fraction column would say nothing the basis does not, or contradict it: refused.
         (
             "?components=ethanol,water",
