@@ -113,6 +113,10 @@ class Mixture:
             model.append((self.group_table.method, self.group_table.source))
         else:
             model.append(("Raoult's law (an ideal solution)", "asked for by the request: no activity model"))
+        tested: dict[str, dict[str, None]] = {}  # the judges of two liquid phases other than the model, their sources
+        for judge in (j for b in self.binaries for j in b.judges if j.name != MODEL_NAMES[self.model]):
+            tested.setdefault(judge.name, {})[judge.source] = None
+        model += [(f"two liquid phases tested with {name}", "; ".join(sources)) for name, sources in tested.items()]
         shared: dict[tuple[str, str], list[str]] = {}  # components citing the same equation and source, once
         for fluid in self.components:
             shared.setdefault((fluid.method, fluid.source), []).append(fluid.name)

@@ -87,7 +87,7 @@ def _ideal_mixture(components: tuple[Fluid, ...], tables: Mapping[str, GroupTabl
 
 
 def _group_judge(table: GroupTable, first: Fluid, second: Fluid) -> Judge:
-    return Judge(MODEL_NAMES[table.form], table.model([first, second]), _scan((first, second)))
+    return Judge(MODEL_NAMES[table.form], table.model([first, second]), _scan((first, second)), table.source)
 
 
 def _judges(first: Fluid, second: Fluid, tables: Mapping[str, GroupTable], own: Judge | None) -> tuple[Judge, ...]:
@@ -151,6 +151,6 @@ def _binary(
         other = judge.pairs.get(frozenset(ids)) if judge else None
         if judge and other:
             scan = (other.t_min - SPLIT_MARGIN, other.t_max + SPLIT_MARGIN)
-            own = Judge(MODEL_NAMES[judge.model], judge.activity(ids), scan)
+            own = Judge(MODEL_NAMES[judge.model], judge.activity(ids), scan, other.source)
             break
     return Binary(ids, _judges(first, second, tables, own), pair)

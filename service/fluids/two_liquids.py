@@ -34,6 +34,7 @@ class Judge:
     name: str
     model: Activity | Unifac
     scan: tuple[float, float]
+    source: str
 
 
 def check_two_liquids(

@@ -78,7 +78,7 @@ def test_glycol_coolant_by_raoults_law(mixture_of: MixtureOf) -> None:
 
 def test_components_sharing_an_equation_are_cited_once(mixture_of: MixtureOf) -> None:
     methods = [method for method, _ in mixture_of("methanol", "ethanol", "water").citations]
-    assert methods[1:] == [
+    assert [m for m in methods[1:] if not m.startswith("two liquid phases tested")] == [
         "Methanol, Ethanol: Wagner 2.5-5 equation (PPDS form)",
         "Water: IAPWS 1992 saturation-pressure equation (Wagner and Pruss)",
     ]

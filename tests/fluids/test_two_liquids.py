@@ -68,3 +68,10 @@ def test_an_ideal_solution_is_still_tested_for_two_liquids(mixture_of: MixtureOf
     # Raoult's law cannot show two liquid phases; water and benzene barely mix (a fact of the trade): refused.
     with pytest.raises(Refusal, match="two liquid phases"):
         mixture_of("water", "benzene", model="ideal").bubble_point(ATMOSPHERE, EQUIMOLAR)
+
+
+def test_the_judges_are_cited(mixture_of: MixtureOf) -> None:
+    # A Wilson answer says which models tested its liquid, with their sources (the DECHEMA NRTL set, Dortmund's table).
+    citations = dict(mixture_of("methanol", "ethanol", "water", model="wilson").citations)
+    assert "DECHEMA" in citations["two liquid phases tested with NRTL"]
+    assert citations["two liquid phases tested with modified UNIFAC (Dortmund)"]
