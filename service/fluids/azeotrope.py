@@ -11,7 +11,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from service.fluids.cautions import Caution, Warnings
+from service.fluids.cautions import Caution, Warnings, literal
+from service.fluids.limits import Refusal
 from service.fluids.mixture import Array, Mixture
 from service.fluids.questions import Answer
 from service.fluids.site_pressure import LocalPressure, PressureReadings, local_pressure
@@ -48,7 +49,16 @@ def azeotrope(mix: Mixture, readings: PressureReadings) -> Azeotrope:
             - 1.0
         )
 
-    signs = np.sign(excess(GRID))
+    try:
+        signs = np.sign(excess(GRID))
+    except Refusal as exc:
+        raise Refusal(
+            f"{literal(first)} and {literal(second)} form two liquid phases over part of their composition range "
+            "at this pressure: a single-liquid azeotrope is not looked for (where the vapor meets two liquids, the "
+            "azeotrope is heterogeneous, outside this method).",
+            exc.fields,
+            exc.status,
+        ) from exc
     changes = np.flatnonzero(signs[:-1] * signs[1:] < 0)
     answer.citations += mix.citations
     answer.cite(None, air=answer.local.note)

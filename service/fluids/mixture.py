@@ -114,8 +114,9 @@ class Mixture:
         else:
             model.append(("Raoult's law (an ideal solution)", "asked for by the request: no activity model"))
         tested: dict[str, dict[str, None]] = {}  # the judges of two liquid phases other than the model, their sources
-        for judge in (j for b in self.binaries for j in b.judges if j.name != MODEL_NAMES[self.model]):
-            tested.setdefault(judge.name, {})[judge.source] = None
+        for binary in self.binaries:
+            for judge in (j for j in binary.judges if j.name != MODEL_NAMES[self.model]):
+                tested.setdefault(judge.name, {})[f"{'/'.join(binary.ids)}: {judge.source}"] = None
         model += [(f"two liquid phases tested with {name}", "; ".join(sources)) for name, sources in tested.items()]
         shared: dict[tuple[str, str], list[str]] = {}  # components citing the same equation and source, once
         for fluid in self.components:

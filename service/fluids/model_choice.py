@@ -46,7 +46,7 @@ def mixture(
                 {"components": [f"{fluid.id}: its vapor associates"]},
             )
     if model == "ideal":
-        return _ideal_mixture(tuple(components), tables)
+        return _ideal_mixture(tuple(components), pair_sets, tables)
     fitted: PairModel = "nrtl" if model == "auto" else model  # type: ignore[assignment]
     if fitted in pair_sets:
         chosen = pair_sets[fitted]
@@ -79,9 +79,13 @@ def _group_mixture(
     return Mixture(components, table.form, activity, binaries, notes, table)  # type: ignore[arg-type]
 
 
-def _ideal_mixture(components: tuple[Fluid, ...], tables: Mapping[str, GroupTable]) -> Mixture:
+def _ideal_mixture(
+    components: tuple[Fluid, ...], pair_sets: Mapping[PairModel, PairSet], tables: Mapping[str, GroupTable]
+) -> Mixture:
     binaries = tuple(
-        Binary((a.id, b.id), _judges(a, b, tables, None)) for i, a in enumerate(components) for b in components[i + 1 :]
+        Binary((a.id, b.id), _judges(a, b, tables, _fitted_judge(pair_sets, (a.id, b.id))))
+        for i, a in enumerate(components)
+        for b in components[i + 1 :]
     )
     return Mixture(components, "ideal", None, binaries, (IDEAL_NOTE, *_untested(binaries)))
 
@@ -109,8 +113,8 @@ def _judges(first: Fluid, second: Fluid, tables: Mapping[str, GroupTable], own: 
 def _untested(binaries: tuple[Binary, ...]) -> tuple[str, ...]:
     """A caution per pair that no model at hand tests for two liquid phases."""
     return tuple(
-        f"No model at hand tests {' and '.join(literal(i) for i in b.ids)} for two liquid phases: the answer "
-        "assumes one liquid."
+        f"No model at hand tests {' and '.join(literal(i) for i in b.ids)} for two liquid phases (no fitted pair, "
+        "and the group methods have no groups for it or are not used for it): the answer assumes one liquid."
         for b in binaries
         if not b.judges
     )
@@ -145,12 +149,17 @@ def _binary(
     """The pair of ``first`` and ``second`` the answer uses, with the judges of two liquid phases: the pair's own
     set, or for Wilson (which cannot show them) the same pair's NRTL or UNIQUAC set, else UNIFAC; and Dortmund."""
     ids = (first.id, second.id)
-    pair = chosen.pairs[frozenset(ids)]
-    own = None
-    for judge in (chosen,) if chosen.model != "wilson" else (pair_sets.get("nrtl"), pair_sets.get("uniquac")):
-        other = judge.pairs.get(frozenset(ids)) if judge else None
-        if judge and other:
-            scan = (other.t_min - SPLIT_MARGIN, other.t_max + SPLIT_MARGIN)
-            own = Judge(MODEL_NAMES[judge.model], judge.activity(ids), scan, other.source)
-            break
-    return Binary(ids, _judges(first, second, tables, own), pair)
+    own = _fitted_judge({chosen.model: chosen} if chosen.model != "wilson" else pair_sets, ids)
+    return Binary(ids, _judges(first, second, tables, own), chosen.pairs[frozenset(ids)])
+
+
+def _fitted_judge(pair_sets: Mapping[PairModel, PairSet], ids: tuple[str, str]) -> Judge | None:
+    """The pair's NRTL set as a judge of two liquid phases, else its UNIQUAC set (Wilson's and Raoult's law cannot
+    show them), over the set's stated range widened by ``SPLIT_MARGIN``; None where neither has the pair."""
+    for model in ("nrtl", "uniquac"):
+        judge = pair_sets.get(model)
+        pair = judge.pairs.get(frozenset(ids)) if judge else None
+        if judge and pair:
+            scan = (pair.t_min - SPLIT_MARGIN, pair.t_max + SPLIT_MARGIN)
+            return Judge(MODEL_NAMES[model], judge.activity(ids), scan, pair.source)
+    return None

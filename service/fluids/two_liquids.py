@@ -22,8 +22,8 @@ from service.physics.liquid_split import binodal
 
 Array = NDArray[np.float64]
 DISAGREE = (
-    " split into two liquid phases here: answered as one liquid. If the liquid turns cloudy or separates into "
-    "layers, this answer does not hold."
+    " split into two liquid phases here, and another judge does not: answered as one liquid. If the liquid turns "
+    "cloudy or separates into layers, this answer does not hold."
 )
 
 
@@ -53,9 +53,12 @@ def check_two_liquids(
     if len(components) == 2:
         share = liquid[:, list(components).index(pair[0])]
         inside = [(share > low) & (share < high) for low, high in gaps]
-    else:
+        every = np.logical_and.reduce(inside)
+    else:  # a gap at all; every judge's, and overlapping, to agree
         inside = [~np.isnan(low) for low, _ in gaps]
-    every, some = np.logical_and.reduce(inside), np.logical_or.reduce(inside)
+        overlap = np.fmax.reduce([g[0] for g in gaps]) < np.fmin.reduce([g[1] for g in gaps])
+        every = np.logical_and.reduce(inside) & overlap
+    some = np.logical_or.reduce(inside)
     names, who = " and ".join(literal(c) for c in pair), " and ".join(judge.name for judge in judges)
     if any_of(every):
         i = int(np.flatnonzero(every)[0])
@@ -75,7 +78,11 @@ def check_two_liquids(
             "point is not answered there.",
             {field: ["two liquid phases"]},
         )
-    return [Caution(f"{who} disagree on whether {names}{DISAGREE}", some)] if any_of(some) else []
+    if not any_of(some):
+        return []
+    first = int(np.flatnonzero(some)[0])
+    yes = " and ".join(judge.name for judge, split in zip(judges, inside, strict=True) if split[first])
+    return [Caution(f"{yes} predicts that {names}{DISAGREE} ({who} were asked.)", some)]
 
 
 _SPLITS: dict[tuple[str, tuple[str, str], tuple[float, float]], tuple[Array, Array, Array, NDArray[np.bool_]]] = {}
@@ -95,8 +102,9 @@ def _binodal_at(ids: tuple[str, str], judge: Judge, temperature: Array) -> tuple
         _SPLITS[key] = (temperatures, nothing, nothing.copy(), np.zeros(len(temperatures), dtype=bool))
     temperatures, low, high, done = _SPLITS[key]
     k = np.clip(np.searchsorted(temperatures, temperature), 1, len(temperatures) - 1)
-    rows = np.union1d(k - 1, k)
-    missing = rows[~done[rows]]
+    needed = np.bincount(k, minlength=len(temperatures)) > 0  # rows k, and k - 1 below: no sort of the points
+    needed[:-1] |= needed[1:]
+    missing = np.flatnonzero(needed & ~done)
     if missing.size:
         low[missing], high[missing] = binodal(judge.model.log_gamma, temperatures[missing])
         done[missing] = True

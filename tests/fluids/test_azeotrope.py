@@ -6,6 +6,7 @@ import numpy as np
 import pytest
 
 from service.fluids.azeotrope import azeotrope
+from service.fluids.limits import Refusal
 from service.fluids.site_pressure import PressureReadings
 from tests.conftest import MixtureOf
 
@@ -38,3 +39,11 @@ def test_none_says_why(mixture_of: MixtureOf) -> None:
     mix = mixture_of("benzene", "toluene")
     found = azeotrope(mix, ONE_ATMOSPHERE)
     assert found.temperature is None and "Benzene is the more volatile" in found.reason
+
+
+def test_a_search_across_two_liquids_is_refused_plainly(mixture_of: MixtureOf) -> None:
+    # Water and benzene form a heterogeneous azeotrope (a fact of the trade): refused, without naming the
+    # search's internal grid points as the request's.
+    with pytest.raises(Refusal, match="single-liquid azeotrope is not looked for") as refused:
+        azeotrope(mixture_of("water", "benzene", model="ideal"), ONE_ATMOSPHERE)
+    assert "point" not in refused.value.message

@@ -61,7 +61,7 @@ def test_a_split_one_judge_alone_predicts_is_answered_with_a_caution(
     mixture_of: MixtureOf, first: str, second: str, x1: float, model: Model, pressure: float
 ) -> None:
     found = mixture_of(first, second, model=model).bubble_point(np.array([pressure]), np.array([[x1, 1 - x1]]))
-    assert any("disagree on whether" in str(w) for w in found.warnings)
+    assert any("and another judge does not" in str(w) for w in found.warnings)
 
 
 def test_an_ideal_solution_is_still_tested_for_two_liquids(mixture_of: MixtureOf) -> None:
@@ -75,3 +75,18 @@ def test_the_judges_are_cited(mixture_of: MixtureOf) -> None:
     citations = dict(mixture_of("methanol", "ethanol", "water", model="wilson").citations)
     assert "DECHEMA" in citations["two liquid phases tested with NRTL"]
     assert citations["two liquid phases tested with modified UNIFAC (Dortmund)"]
+
+
+def test_an_ideal_solution_is_judged_by_the_pairs_fitted_set(mixture_of: MixtureOf) -> None:
+    # Methanol and n-butane have DECHEMA NRTL and UNIQUAC sets but no UNIFAC test of their own kind here: the
+    # ideal answer is tested with the NRTL set, as a Wilson answer is.
+    judges = [j.name for j in mixture_of("methanol", "n-butane", model="ideal").binaries[0].judges]
+    assert judges[0] == "NRTL"
+
+
+def test_three_components_need_the_judges_gaps_to_overlap(mixture_of: MixtureOf) -> None:
+    # At 400 K NRTL splits methyl ethyl ketone/water between x_MEK 0.44 and 0.89 and Dortmund between 0.11 and 0.42:
+    # both predict a gap but they do not agree where, so a ternary with them is answered with a caution.
+    mix = mixture_of("methyl-ethyl-ketone", "water", "ethanol", model="nrtl")
+    found = mix.bubble_pressure(np.array([400.0]), np.array([[0.05, 0.05, 0.9]]))
+    assert any("and another judge does not" in str(w) for w in found.warnings)

@@ -107,9 +107,9 @@ MODEL = fields.String(
     metadata={
         "description": "auto: the built-in NRTL parameters where every pair has them, else the UNIFAC group "
         "prediction with a warning; nrtl, wilson, uniquac: that model's fitted pairs only (a missing pair "
-        "refused; Wilson's mixtures are tested for two liquid phases with the pair's NRTL or UNIQUAC set, else "
-        "UNIFAC); unifac: original UNIFAC; unifac-dortmund: modified UNIFAC (Dortmund); ideal: Raoult's law, for "
-        "mixtures known to be ideal."
+        "refused); unifac: original UNIFAC; unifac-dortmund: modified UNIFAC (Dortmund); ideal: Raoult's law, for "
+        "mixtures known to be ideal. Wilson's equation and Raoult's law cannot show two liquid phases: their "
+        "mixtures are tested for them with the pair's NRTL or UNIQUAC set, else UNIFAC."
     },
 )
 TEMPERATURE = Input("temperature", "Temperature, instead of a pressure: the answer is then a pressure.")
@@ -194,8 +194,9 @@ _COMMON = (
     "Give `components` and their `fractions`, and either a pressure (as /v1/boiling-point takes it: absolute, "
     "elevation, barometer or gauge reading) or a `temperature`. Modified Raoult's law with an ideal vapor: a "
     "low-pressure method, warned above 0.5 MPa and refused above 1 MPa; refused where a component is above its "
-    "critical temperature or where a pair's parameters predict two liquid phases. `k_values` are y/x; "
-    "`relative_volatility` is K1/K2 for two components."
+    "critical temperature, or where the liquid would split into two liquid phases by every model that tests the "
+    "pair (its own, and modified UNIFAC (Dortmund) where it has the groups; a caution where they disagree). "
+    "`k_values` are y/x; `relative_volatility` is K1/K2 for two components."
 )
 
 for _operation in (
