@@ -270,9 +270,11 @@ def build_document() -> dict[str, Any]:
         spec.components.schema(name, unit_spellings_schema(name))
     spec.components.schema("EquationFluid", schema=EquationFluid)
     spec.components.schema("PointFluid", schema=PointFluid)
-    for operation in COMPUTING_PATHS:
+    # By path, not by the order in which the path modules happened to be imported: the document is the same
+    # whichever module a process (or a test) loads first.
+    for operation in sorted(COMPUTING_PATHS, key=lambda o: o.path):
         _computing_paths(spec, operation)
-    for path in PLAIN_PATHS:
+    for path in sorted(PLAIN_PATHS, key=lambda p: p.path):
         catalog_path = path.path.startswith("/v1/")
         operation: dict[str, Any] = {
             "tags": ["fluids" if catalog_path else "service"],
