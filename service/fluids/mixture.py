@@ -246,6 +246,8 @@ class PhasePoint(Answer):
     pressure: Array | None = None
     other: Array | None = None
     k_values: Array | None = None
+    relative_volatility: Array | None = None
+    """K1/K2, for two components."""
     gamma: Array | None = None
 
 
@@ -283,6 +285,8 @@ def phase_point(
     answer.pressure = found.pressure.reshape(shape)
     answer.gamma = found.gamma.reshape(moles.shape)
     answer.k_values = (found.gamma * pure / found.pressure[:, None]).reshape(moles.shape)
+    if len(mix.components) == 2:
+        answer.relative_volatility = answer.k_values[..., 0] / answer.k_values[..., 1]
     answer.other = _from_moles(found.other, basis, molar_masses).reshape(moles.shape)
     answer.warnings += found.warnings
     answer.citations += mix.citations

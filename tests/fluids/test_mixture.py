@@ -6,7 +6,8 @@ import numpy as np
 import pytest
 
 from service.fluids.limits import OutOfRange
-from service.fluids.mixture import Model
+from service.fluids.mixture import Model, phase_point
+from service.fluids.site_pressure import PressureReadings
 from tests.conftest import MixtureOf
 
 ATMOSPHERE = np.array([101_325.0])
@@ -82,3 +83,19 @@ def test_components_sharing_an_equation_are_cited_once(mixture_of: MixtureOf) ->
         "Methanol, Ethanol: Wagner 2.5-5 equation (PPDS form)",
         "Water: IAPWS 1992 saturation-pressure equation (Wagner and Pruss)",
     ]
+
+
+def test_relative_volatility_of_a_binary(mixture_of: MixtureOf) -> None:
+    # alpha = (y1/x1) / (y2/x2), the definition; only for two components.
+    x = np.array([[0.1, 0.9]])
+    found = phase_point(mixture_of("ethanol", "water"), False, x, "mole", PressureReadings(pressure=ATMOSPHERE))
+    y = found.other[0]
+    assert found.relative_volatility[0] == pytest.approx((y[0] / x[0, 0]) / (y[1] / x[0, 1]), rel=1e-9)
+    three = phase_point(
+        mixture_of("methanol", "ethanol", "water"),
+        False,
+        np.array([[0.1, 0.1, 0.8]]),
+        "mole",
+        PressureReadings(pressure=ATMOSPHERE),
+    )
+    assert three.relative_volatility is None

@@ -147,8 +147,8 @@ def _answer(inputs: Inputs, dew: bool) -> dict[str, Any]:
         "k_values": by_component(found.k_values, RATIO),
         "activity_coefficients": by_component(found.gamma, RATIO),
     }
-    if len(ids) == 2:
-        answer["relative_volatility"] = quantity(found.k_values[..., 0] / found.k_values[..., 1], RATIO)
+    if found.relative_volatility is not None:
+        answer["relative_volatility"] = quantity(found.relative_volatility, RATIO)
     return {**answer, "model": mix.model, **provenance(found, inputs.units)}
 
 
