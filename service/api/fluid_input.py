@@ -238,6 +238,10 @@ CONCENTRATION = Input(
 )
 _BASES: dict[str, Basis] = {"mol/kg": "molality", "degBx": "Brix"}
 """How each concentration unit states a concentration; the others are mass fractions."""
+FLUID_OPTIONS = {"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE}
+"""The options of every path that answers for one thing that boils: a fluid, or water with a solute."""
+FLUID_BODY_OPTIONS = {"fluid": BODY_FLUID}
+"""Their POST body's own field: a fluid may be defined in the body."""
 
 
 def resolve_boiling(inputs: Inputs) -> Boiling:

@@ -10,11 +10,9 @@ from marshmallow import validate
 from service.api import answer_schemas
 from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.fluid_input import (
-    BODY_FLUID,
     CONCENTRATION,
-    EXTRAPOLATE,
-    FLUID,
-    SOLUTE,
+    FLUID_BODY_OPTIONS,
+    FLUID_OPTIONS,
     resolve_boiling,
     solute_fields,
 )
@@ -123,8 +121,8 @@ ComputingPath(
         **INSTRUMENT_INPUTS,
         "concentration": CONCENTRATION,
     },
-    options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE, "tolerance": TOLERANCE},
-    body_options={"fluid": BODY_FLUID},
+    options={**FLUID_OPTIONS, "tolerance": TOLERANCE},
+    body_options=FLUID_BODY_OPTIONS,
     dimensions=("pressure", "temperature", "length", "concentration"),
     response=answer_schemas.SaturationMarginAnswer,
     compute=saturation_margin,
@@ -152,8 +150,8 @@ ComputingPath(
         "friction_loss": Input("length", "Head lost to friction in the suction line (default 0)."),
         "concentration": CONCENTRATION,
     },
-    options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE, "liquid_density": LIQUID_DENSITY},
-    body_options={"fluid": BODY_FLUID},
+    options={**FLUID_OPTIONS, "liquid_density": LIQUID_DENSITY},
+    body_options=FLUID_BODY_OPTIONS,
     dimensions=("pressure", "temperature", "length", "concentration"),
     response=answer_schemas.NpshAnswer,
     compute=npsh_available,

@@ -9,11 +9,9 @@ from flask import Blueprint
 from service.api import answer_schemas
 from service.api.computing_path import ComputingPath, Input, Inputs
 from service.api.fluid_input import (
-    BODY_FLUID,
     CONCENTRATION,
-    EXTRAPOLATE,
-    FLUID,
-    SOLUTE,
+    FLUID_BODY_OPTIONS,
+    FLUID_OPTIONS,
     resolve_boiling,
     solute_fields,
 )
@@ -91,8 +89,8 @@ for _operation in (
             "hydrostatic head of the boiling liquid above the sensor."
         ),
         inputs={**PRESSURE_INPUTS, **INSTRUMENT_INPUTS, "concentration": CONCENTRATION},
-        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
-        body_options={"fluid": BODY_FLUID},
+        options=FLUID_OPTIONS,
+        body_options=FLUID_BODY_OPTIONS,
         dimensions=("pressure", "temperature", "length", "concentration"),
         response=answer_schemas.BoilingPointAnswer,
         compute=boiling_point,
@@ -107,8 +105,8 @@ for _operation in (
             "temperature": Input("temperature", "Liquid temperature.", required=True),
             "concentration": CONCENTRATION,
         },
-        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
-        body_options={"fluid": BODY_FLUID},
+        options=FLUID_OPTIONS,
+        body_options=FLUID_BODY_OPTIONS,
         dimensions=("pressure", "temperature", "concentration"),
         response=answer_schemas.VaporPressureAnswer,
         compute=vapor_pressure,
@@ -129,8 +127,8 @@ for _operation in (
             "sea_level_pressure": SITE_INPUTS["sea_level_pressure"],
             "concentration": CONCENTRATION,
         },
-        options={"fluid": FLUID, "solute": SOLUTE, "extrapolate": EXTRAPOLATE},
-        body_options={"fluid": BODY_FLUID},
+        options=FLUID_OPTIONS,
+        body_options=FLUID_BODY_OPTIONS,
         dimensions=("pressure", "temperature", "length", "concentration"),
         response=answer_schemas.ElevationAnswer,
         compute=elevation,
