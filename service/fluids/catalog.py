@@ -56,6 +56,11 @@ def fluid_from_entry(entry: Mapping[str, Any]) -> Fluid:
     )
 
 
+def entry_error(label: str, exc: ValidationError) -> CatalogError:
+    """The start-up error of an entry that fails its schema: ``label`` (file and entry), then each field's message."""
+    return CatalogError(f"{label}: {' | '.join(messages(exc.normalized_messages()))}")
+
+
 def messages(errors: Mapping[str, Any], prefix: str = "") -> Iterable[str]:
     for key, value in errors.items():
         if isinstance(value, Mapping):
@@ -79,7 +84,7 @@ def load_file(path: Path) -> list[Fluid]:
         try:
             fluids.append(fluid_from_entry(FluidEntrySchema().load(raw)))
         except ValidationError as exc:
-            raise CatalogError(f"{label}: {' | '.join(messages(exc.normalized_messages()))}") from exc
+            raise entry_error(label, exc) from exc
     return fluids
 
 

@@ -17,7 +17,7 @@ from typing import Any, Literal
 import numpy as np
 from marshmallow import Schema, ValidationError, fields, validate, validates_schema
 
-from service.fluids.catalog import Catalog, CatalogError, messages
+from service.fluids.catalog import Catalog, CatalogError, entry_error
 from service.fluids.fluid import Fluid
 from service.physics.activity.nrtl import Nrtl
 from service.physics.activity.uniquac import Uniquac
@@ -173,4 +173,4 @@ def _valid(schema: Schema, raw: Any, label: str) -> dict[str, Any]:
     try:
         return schema.load(raw)
     except ValidationError as exc:
-        raise CatalogError(f"{label}: {' | '.join(messages(exc.normalized_messages()))}") from exc
+        raise entry_error(label, exc) from exc

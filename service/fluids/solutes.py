@@ -15,7 +15,7 @@ import numpy as np
 from marshmallow import Schema, ValidationError, fields, validate, validates, validates_schema
 from numpy.typing import ArrayLike, NDArray
 
-from service.fluids.catalog import Catalog, CatalogError, messages
+from service.fluids.catalog import Catalog, CatalogError, entry_error
 from service.fluids.schema import FormTable, cas_check_digit_ok
 from service.fluids.solute_forms import (
     SOLUTE_FORMS,
@@ -176,7 +176,7 @@ def load_solute_file(path: Path) -> Solute:
     except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError) as exc:
         raise CatalogError(f"{path}: cannot read solute file: {exc}") from exc
     except ValidationError as exc:
-        raise CatalogError(f"{path}: {' | '.join(messages(exc.normalized_messages()))}") from exc
+        raise entry_error(str(path), exc) from exc
 
 
 def load_solutes(directory: Path = SOLUTE_DIR) -> Catalog[Solute]:
