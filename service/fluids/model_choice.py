@@ -101,12 +101,13 @@ def _judges(first: Fluid, second: Fluid, tables: Mapping[str, GroupTable], own: 
     ChemSep's UNIQUAC set), and Dortmund's parameters were fitted to liquid-liquid data too (Weidlich and
     Gmehling 1987)."""
     found = [own] if own else []
-    for form in ("unifac", "unifac-dortmund"):
-        if (own is None or form == "unifac-dortmund") and not any(j.name == MODEL_NAMES[form] for j in found):
-            try:
-                found.append(_group_judge(tables[form], first, second))
-            except Refusal:
-                continue
+    for form in ("unifac", "unifac-dortmund") if own is None else ("unifac-dortmund",):
+        if own and own.name == MODEL_NAMES[form]:
+            continue  # the model is Dortmund itself
+        try:
+            found.append(_group_judge(tables[form], first, second))
+        except Refusal:  # no groups for the pair, or a pair the method answers badly: that judge is absent
+            continue
     return tuple(found)
 
 
