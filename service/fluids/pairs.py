@@ -166,6 +166,8 @@ def load_pair_set(catalog: Catalog[Fluid], model: PairModel, path: Path) -> Pair
         if key in pairs:
             raise CatalogError(f"{label}: {' and '.join(pair.components)} given twice")
         pairs[key] = pair
+    if sizes and not document.get("sizes_source"):
+        raise CatalogError(f"{path}: sizes_source must cite where the [[component]] r and q come from")
     return PairSet(model, method, pairs, sizes, document.get("sizes_source", ""))
 
 

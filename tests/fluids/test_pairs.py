@@ -91,3 +91,10 @@ def test_a_uniquac_pair_without_sizes_stops_start_up(catalog: Catalog[Fluid], tm
     )
     with pytest.raises(CatalogError, match="r and q of both components"):
         load_pair_set(catalog, "uniquac", path)
+
+
+def test_uniquac_sizes_without_their_source_stop_start_up(catalog: Catalog[Fluid], tmp_path: Path) -> None:
+    path = tmp_path / "uniquac.toml"
+    path.write_text('[[component]]\nid = "ethanol"\nr = 2.11\nq = 1.97\n')
+    with pytest.raises(CatalogError, match="sizes_source"):
+        load_pair_set(catalog, "uniquac", path)
